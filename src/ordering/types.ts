@@ -1,0 +1,21 @@
+/**
+ * Separator tree of a dissection ordering, in the new numbering.
+ * Node i covers the contiguous positions [first[i], end[i]); its own separator
+ * occupies [separatorFirst[i], end[i]) (empty for a leaf subdomain), and the
+ * ranges of its children partition [first[i], separatorFirst[i]).
+ * Nodes are listed children before parents; parent[i] = -1 for roots
+ * (one root per connected component that was dissected).
+ */
+export interface SeparatorTree {
+  readonly count: number;
+  readonly first: Int32Array;
+  readonly separatorFirst: Int32Array;
+  readonly end: Int32Array;
+  readonly parent: Int32Array;
+}
+
+/** What every ordering returns. `permutation[k]` is the original index of the vertex placed at position k. */
+export interface OrderingResult {
+  readonly permutation: Int32Array;
+  readonly separatorTree?: SeparatorTree;
+}

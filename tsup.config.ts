@@ -1,0 +1,20 @@
+import { defineConfig } from "tsup";
+
+export default defineConfig([
+  {
+    entry: { index: "src/index.ts" },
+    format: ["esm", "cjs"],
+    dts: true,
+    sourcemap: true,
+    clean: true,
+    target: "node20",
+  },
+  {
+    entry: { cli: "src/cli/main.ts" },
+    format: ["esm"],
+    sourcemap: true,
+    clean: false,
+    target: "node20",
+    banner: { js: "#!/usr/bin/env node" },
+  },
+]);
