@@ -18,4 +18,6 @@ export interface SeparatorTree {
 export interface OrderingResult {
   readonly permutation: Int32Array;
   readonly separatorTree?: SeparatorTree;
+  /** Name of the ordering that ran (useful when a default was chosen). */
+  readonly name?: string;
 }
