@@ -1,0 +1,30 @@
+/**
+ * septum — sparse direct solution of symmetric positive definite and
+ * quasi-definite systems: fill-reducing orderings, supernodal symbolic
+ * analysis, multifrontal Cholesky and L·D·Lᵀ on register-tiled dense kernels.
+ *
+ * ```ts
+ * import { SparseMatrix, analyze } from "septum";
+ * const A = SparseMatrix.fromTriplets(n, n, rows, cols, values);
+ * const analysis = analyze(A);            // ordering + symbolic, reusable
+ * const F = analysis.factor(A);           // numeric Cholesky
+ * const x = F.solve(b);
+ * ```
+ * @packageDocumentation
+ */
+export { SparseMatrix, type IndexArray, type ValueArray } from "./matrix/sparse.js";
+export {
+  storageForm, lowerTriangle, permuteLower, symmetricMultiply, symmetricNormInf, type StorageForm,
+} from "./matrix/symmetric.js";
+export {
+  SeptumError, InputError, MatrixMarketError, NotSymmetricError, NotPositiveDefiniteError,
+  PatternMismatchError, FormatError, AbortedError, CapacityError,
+} from "./errors.js";
+export type { Graph } from "./graph/types.js";
+export { adjacencyGraph } from "./graph/adjacency.js";
+export type { SeparatorTree, OrderingResult } from "./ordering/types.js";
+export type { SupernodalStructure } from "./symbolic/types.js";
+export type { AmalgamationOptions } from "./symbolic/supernodes.js";
+export { analyze, type AnalyzeOptions, type OrderingName, type Progress } from "./solver/analyze.js";
+export { Analysis } from "./solver/analysis.js";
+export type { AnalysisStats } from "./solver/stats.js";
