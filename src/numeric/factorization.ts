@@ -1,0 +1,248 @@
+/**
+ * The Factorization object: runs the multifrontal pass (multifrontal.ts) on a
+ * store reserved once from the predicted workspace, maps pivot failures back
+ * to the caller's numbering, and offers solves (with iterative refinement and
+ * the Rigal–Gaches normwise backward error), refactor, log-determinant and
+ * inertia. Any failure leaves it refusing to solve until a refactor succeeds.
+ */
+import { AbortedError, InputError, NotPositiveDefiniteError, PatternMismatchError, SeptumError } from "../errors.js";
+import { jsKernels } from "../kernels/js/index.js";
+import type { DenseKernels } from "../kernels/types.js";
+import type { SparseMatrix } from "../matrix/sparse.js";
+import { lowerTriangle, maxAbs, requireSquare, symmetricNormInf } from "../matrix/symmetric.js";
+import { multifrontal, type PivotFailure } from "./multifrontal.js";
+import { buildScatterMap, samePattern, scatterValues, type ScatterMap } from "./scatter.js";
+import { refineSolve } from "./refine.js";
+import { backwardSweep, diagonalSweep, forwardSweep } from "./triangular.js";
+import {
+  DEFAULT_PIVOT_TOLERANCE, type FactorMethod, type FactorOptions, type FactorStats, type Inertia,
+  type NumericInput, type SolveInfo, type SolveOptions,
+} from "./types.js";
+import { predictWorkspace, stackSchedule, type StackSchedule, type WorkspacePrediction } from "./workspace.js";
+
+/** Options that may change from one refactor to the next. */
+export type RefactorOptions = Pick<FactorOptions, "onProgress" | "signal">;
+
+/**
+ * Numeric factorization of P·A·Pᵀ = L·Lᵀ (Cholesky) or L·D·Lᵀ for the
+ * structure of an analysis. Create it with `factorize` (or `analysis.factor`).
+ */
+export class Factorization {
+  /** "cholesky" or "ldlt". */
+  readonly method: FactorMethod;
+  /** Order of the matrix. */
+  readonly n: number;
+  private readonly input: NumericInput;
+  private readonly kernels: DenseKernels;
+  private readonly pivotTolerance: number;
+  private readonly schedule: StackSchedule;
+  private readonly workspace: WorkspacePrediction;
+  private readonly cumulativeFlops: Float64Array;
+  private map: ScatterMap | null = null;
+  private matrix: SparseMatrix | null = null;
+  private normInf = 0;
+  private failure: string | null = "not factored yet";
+  private lastStats: FactorStats | null = null;
+
+  /** @internal Use `factorize`. */
+  constructor(input: NumericInput, options: FactorOptions = {}) {
+    const method = options.method ?? "cholesky";
+    if (method !== "cholesky" && method !== "ldlt") throw new InputError(`unknown method "${String(method)}", expected "cholesky" or "ldlt"`);
+    const tol = options.pivotTolerance ?? DEFAULT_PIVOT_TOLERANCE;
+    if (!(tol >= 0) || !Number.isFinite(tol)) throw new InputError(`pivotTolerance must be a finite number >= 0, got ${tol}`);
+    this.method = method;
+    this.input = input;
+    this.n = input.structure.n;
+    this.kernels = options.kernels ?? jsKernels();
+    this.pivotTolerance = tol;
+    this.schedule = stackSchedule(input.structure);
+    this.workspace = predictWorkspace(input.structure, method);
+    this.cumulativeFlops = flopsAlongOrder(input, this.schedule.order);
+  }
+
+  /** Figures of the last successful factorization. */
+  get stats(): FactorStats {
+    return this.usable().lastStats as FactorStats;
+  }
+
+  /**
+   * Factor new values with the same pattern (no symbolic work). A different
+   * pattern throws PatternMismatchError. On any error the factorization is
+   * left unusable until a later refactor succeeds.
+   */
+  refactor(A: SparseMatrix, options: RefactorOptions = {}): this {
+    this.failure = "the last factorization did not complete";
+    const t0 = performance.now();
+    try {
+      this.load(A);
+      this.run(A, options);
+    } catch (e) {
+      this.failure = e instanceof Error ? `the last factorization failed: ${e.message}` : "the last factorization failed";
+      throw e;
+    }
+    const seconds = (performance.now() - t0) / 1000;
+    const flops = this.cumulativeFlops[this.cumulativeFlops.length - 1] || 0;
+    this.matrix = A;
+    this.normInf = symmetricNormInf(A);
+    this.lastStats = {
+      method: this.method, kernels: this.kernels.name, seconds, flops,
+      gflopsPerSecond: seconds > 0 ? flops / seconds / 1e9 : 0,
+      factorBytes: 8 * this.workspace.factorDoubles, peakBytes: this.workspace.peakBytes,
+      supernodes: this.input.structure.supernodeCount,
+    };
+    this.failure = null;
+    return this;
+  }
+
+  /** Check A, build or verify the scatter map, reserve the store and scatter A into the zeroed factor. */
+  private load(A: SparseMatrix): void {
+    requireSquare(A);
+    if (A.ncols !== this.n) throw new PatternMismatchError(`matrix has order ${A.ncols}, the analysis was made for order ${this.n}`);
+    if (this.map === null) this.map = buildScatterMap(this.input.structure, this.input.inversePermutation, A);
+    else if (!samePattern(this.map, A)) {
+      throw new PatternMismatchError("matrix pattern differs from the one this factorization was made for");
+    }
+    if (this.map.form === "full") lowerTriangle(A); // throws NotSymmetricError naming the entry
+    const w = this.workspace;
+    const S = this.kernels.reserve(w.factorDoubles + w.stackDoubles + w.scratchDoubles);
+    S.fill(0, 0, w.factorDoubles);
+    scatterValues(this.map, A, S);
+  }
+
+  /** The multifrontal pass with progress and abort between supernodes. */
+  private run(A: SparseMatrix, options: RefactorOptions): void {
+    const { signal, onProgress } = options;
+    if (signal?.aborted) throw new AbortedError("factorization aborted before it started");
+    const st = this.input.structure, w = this.workspace, cum = this.cumulativeFlops;
+    const total = cum[cum.length - 1] || 1;
+    let step = 0, reported = 0;
+    const between = (): void => {
+      const done = cum[step++];
+      if (signal?.aborted) throw new AbortedError(`factorization aborted after ${step} of ${st.supernodeCount} supernodes`);
+      if (onProgress && (done - reported >= 0.01 * total || step === st.supernodeCount)) {
+        reported = done;
+        onProgress(done / total);
+      }
+    };
+    const fail = multifrontal({
+      st, kernels: this.kernels, method: this.method, order: this.schedule.order,
+      childPtr: this.schedule.childPtr, children: this.schedule.children,
+      stackBase: w.factorDoubles, scratch: w.factorDoubles + w.stackDoubles,
+      tiny: this.pivotTolerance * maxAbs(A),
+      cbOffset: new Float64Array(st.supernodeCount), local: new Int32Array(st.n), rel: new Int32Array(st.n),
+      between,
+    });
+    if (fail) throw this.pivotError(fail);
+  }
+
+  private pivotError(f: PivotFailure): NotPositiveDefiniteError {
+    const st = this.input.structure;
+    const column = this.input.permutation[st.superStart[f.supernode] + f.column];
+    const what = this.method === "cholesky"
+      ? `matrix is not positive definite: pivot ${f.pivot} <= 0`
+      : `L·D·Lᵀ met a zero or tiny pivot ${f.pivot} (|d| <= ${this.pivotTolerance} · max|a_ij|)`;
+    return new NotPositiveDefiniteError(column, f.pivot, `${what} at column ${column} (0-based, original numbering)`);
+  }
+
+  /** Throw unless the last factorization succeeded. */
+  private usable(): this {
+    if (this.failure !== null) throw new SeptumError(`factorization is not usable: ${this.failure}; call refactor with a valid matrix`);
+    return this;
+  }
+
+  /** Solve A·x = b; b of length n or n×k column-major. Returns a new array. */
+  solve(b: Float64Array | number[], options: SolveOptions = {}): Float64Array {
+    this.usable();
+    if (options.refine) return this.solveWithInfo(b, options).x;
+    const x = Float64Array.from(b);
+    this.checkRhs(x);
+    return this.solveInPlace(x);
+  }
+
+  /** Solve A·x = b overwriting b (length n or n×k column-major) with x; returns b. */
+  solveInPlace(b: Float64Array): Float64Array {
+    this.usable();
+    const k = this.checkRhs(b), n = this.n, perm = this.input.permutation;
+    const y = new Float64Array(b.length);
+    for (let r = 0; r < k; r++) for (let i = 0; i < n; i++) y[r * n + i] = b[r * n + perm[i]];
+    const S = this.kernels.view(), st = this.input.structure, unit = this.method === "ldlt";
+    forwardSweep(S, st, y, k, unit);
+    if (unit) diagonalSweep(S, st, y, k);
+    backwardSweep(S, st, y, k, unit);
+    for (let r = 0; r < k; r++) for (let i = 0; i < n; i++) b[r * n + perm[i]] = y[r * n + i];
+    return b;
+  }
+
+  /** Solve with the normwise backward error reported and optional iterative refinement. */
+  solveWithInfo(b: Float64Array | number[], options: SolveOptions = {}): SolveInfo {
+    this.usable();
+    const rhs = Float64Array.from(b);
+    this.checkRhs(rhs);
+    return refineSolve(this.matrix as SparseMatrix, this.normInf, rhs, (v) => this.solveInPlace(v), options.refine ?? 0);
+  }
+
+  /** Number of right-hand sides in b, after checking its length and values. */
+  private checkRhs(b: ArrayLike<number>): number {
+    const n = this.n;
+    if (n === 0 ? b.length !== 0 : b.length === 0 || b.length % n !== 0) {
+      throw new InputError(`right-hand side has length ${b.length}, expected n = ${n} or a multiple of it (n×k column-major)`);
+    }
+    for (let i = 0; i < b.length; i++) {
+      if (!Number.isFinite(b[i])) throw new InputError(`right-hand side entry ${i % n} of column ${Math.floor(i / n)} is ${b[i]}, not finite`);
+    }
+    return n === 0 ? 0 : b.length / n;
+  }
+
+  /**
+   * log |det A|. For Cholesky det A > 0; for L·D·Lᵀ det A = Π d_j, whose sign
+   * is given by {@link determinantSign}.
+   */
+  logDeterminant(): number {
+    this.usable();
+    let s = 0;
+    this.eachPivot((d) => { s += Math.log(Math.abs(d)); });
+    return this.method === "cholesky" ? 2 * s : s;
+  }
+
+  /** Sign of det A: +1 or −1 (always +1 for Cholesky). */
+  determinantSign(): 1 | -1 {
+    const { negative } = this.inertia();
+    return negative % 2 === 0 ? 1 : -1;
+  }
+
+  /** Inertia from the signs of D (Sylvester); Cholesky implies all positive. `zero` is 0 since tiny pivots stop the factorization. */
+  inertia(): Inertia {
+    this.usable();
+    let positive = 0, negative = 0;
+    this.eachPivot((d) => { if (d > 0) positive++; else negative++; });
+    return { positive, negative, zero: 0 };
+  }
+
+  /** Visit the diagonal of every panel (L_jj for Cholesky, d_j for L·D·Lᵀ). */
+  private eachPivot(f: (d: number) => void): void {
+    const st = this.input.structure, S = this.kernels.view();
+    for (let s = 0; s < st.supernodeCount; s++) {
+      const m = st.rowPtr[s + 1] - st.rowPtr[s], c = st.superStart[s + 1] - st.superStart[s];
+      for (let j = 0; j < c; j++) f(S[st.factorPtr[s] + j * (m + 1)]);
+    }
+  }
+}
+
+/** Running sum of Σ c_j² along the processing order (structure counts). */
+function flopsAlongOrder(input: NumericInput, order: Int32Array): Float64Array {
+  const st = input.structure, cum = new Float64Array(order.length);
+  let acc = 0;
+  for (let k = 0; k < order.length; k++) {
+    const s = order[k], m = st.rowPtr[s + 1] - st.rowPtr[s], c = st.superStart[s + 1] - st.superStart[s];
+    for (let j = 0; j < c; j++) acc += (m - j) * (m - j);
+    cum[k] = acc;
+  }
+  if (input.flops !== undefined && acc > 0) for (let k = 0; k < cum.length; k++) cum[k] *= input.flops / acc;
+  return cum;
+}
+
+/** Numeric factorization of A for the structure of an analysis. */
+export function factorize(input: NumericInput, A: SparseMatrix, options: FactorOptions = {}): Factorization {
+  const F = new Factorization(input, options);
+  return F.refactor(A, { onProgress: options.onProgress, signal: options.signal });
+}

@@ -1,0 +1,88 @@
+/**
+ * Shapes shared by the numeric stage: what it reads from the symbolic
+ * analysis, the options of a numeric factorization, and what solves report.
+ */
+import type { DenseKernels } from "../kernels/types.js";
+import type { SupernodalStructure } from "../symbolic/types.js";
+
+/** Factorization method: L·Lᵀ (SPD) or L·D·Lᵀ without pivoting (SPD or quasi-definite). */
+export type FactorMethod = "cholesky" | "ldlt";
+
+/** What the numeric phase needs from an analysis. All of it is read-only. */
+export interface NumericInput {
+  readonly structure: SupernodalStructure;
+  /** new → original */
+  readonly permutation: Int32Array;
+  /** original → new */
+  readonly inversePermutation: Int32Array;
+  /** Σ c_j² without amalgamation zeros, if the analysis knows it (used for GF/s); otherwise counted from the structure. */
+  readonly flops?: number;
+}
+
+/** Default for {@link FactorOptions.pivotTolerance}. */
+export const DEFAULT_PIVOT_TOLERANCE = 1e-12;
+
+/** Options of a numeric factorization. */
+export interface FactorOptions {
+  /** "cholesky" (default) or "ldlt". */
+  method?: FactorMethod;
+  /** Dense kernel set; by default a fresh plain-JS set. A kernel set must not be shared by two live factorizations. */
+  kernels?: DenseKernels;
+  /** Called with the fraction (0..1] of the factorization flops done, between supernodes. */
+  onProgress?: (fraction: number) => void;
+  /** Checked between supernodes; when aborted the factorization throws AbortedError and is left unusable. */
+  signal?: AbortSignal;
+  /**
+   * L·D·Lᵀ only: a pivot with |d| ≤ pivotTolerance · max|a_ij| stops the
+   * factorization with NotPositiveDefiniteError. Default 1e-12.
+   */
+  pivotTolerance?: number;
+}
+
+/** Options of a solve. */
+export interface SolveOptions {
+  /**
+   * Iterative refinement against the original matrix: a number of steps
+   * (stopping early once the backward error reaches ε), or `true` for up to
+   * 10 steps while each step at least halves the backward error.
+   */
+  refine?: number | boolean;
+}
+
+/** A solution with its quality. */
+export interface SolveInfo {
+  /** The solution (n, or n×k column-major). */
+  readonly x: Float64Array;
+  /**
+   * Normwise backward error ‖b − A·x‖∞ / (‖A‖∞·‖x‖∞ + ‖b‖∞) (Rigal & Gaches
+   * 1967), the largest over the right-hand sides.
+   */
+  readonly backwardError: number;
+  /** Refinement steps taken. */
+  readonly refinementSteps: number;
+}
+
+/** Inertia of the factored matrix: counts of positive, negative and zero eigenvalues (Sylvester's law applied to D). */
+export interface Inertia {
+  readonly positive: number;
+  readonly negative: number;
+  readonly zero: number;
+}
+
+/** Figures of the last successful factorization. */
+export interface FactorStats {
+  readonly method: FactorMethod;
+  /** Kernel set that ran ("js" or "wasm"). */
+  readonly kernels: string;
+  /** Wall-clock seconds of the numeric factorization (assembly + dense kernels). */
+  readonly seconds: number;
+  /** Σ c_j² (design.md convention). */
+  readonly flops: number;
+  /** flops / seconds / 1e9. */
+  readonly gflopsPerSecond: number;
+  /** Bytes of the factor L (supernodal panels, explicit zeros of amalgamation included). */
+  readonly factorBytes: number;
+  /** Bytes of the whole kernel store: factor + peak contribution stack + scratch. */
+  readonly peakBytes: number;
+  readonly supernodes: number;
+}
