@@ -1,0 +1,149 @@
+/**
+ * Every error path of the numeric stage: typed errors from src/errors.ts that
+ * name the offending column or entry in the caller's original numbering, and
+ * a factorization that refuses to solve after any failure until a refactor
+ * succeeds. Expected columns and pivots are worked by hand beside each case.
+ */
+import { describe, expect, it } from "vitest";
+import {
+  AbortedError, InputError, NotPositiveDefiniteError, NotSymmetricError, PatternMismatchError, SeptumError,
+} from "../src/errors.js";
+import { grid2d } from "../src/generate/grids.js";
+import { SparseMatrix } from "../src/matrix/sparse.js";
+import { factorize } from "../src/numeric/index.js";
+import { analyse, asFull, randomPermutation, randomSpd } from "./numeric-support.js";
+
+/** SPD matrix of order n with A(q,q) replaced by `d` and q decoupled from everything. */
+function withIsolated(n: number, q: number, d: number): SparseMatrix {
+  const A = randomSpd(n, 0.2, 5);
+  const r: number[] = [], c: number[] = [], v: number[] = [];
+  for (let j = 0; j < n; j++) for (let p = A.colPtr[j]; p < A.colPtr[j + 1]; p++) {
+    const i = A.rowIdx[p];
+    if (i === q || j === q) continue;
+    r.push(i); c.push(j); v.push(A.values[p]);
+  }
+  r.push(q); c.push(q); v.push(d);
+  return SparseMatrix.fromTriplets(n, n, r, c, v);
+}
+
+function caught(f: () => unknown): unknown {
+  try { f(); } catch (e) { return e; }
+  throw new Error("expected an error");
+}
+
+describe("pivot breakdown names the original column", () => {
+  it("Cholesky: a decoupled diagonal −1 at original column q fails exactly there, for any ordering", () => {
+    // Decoupled, the pivot of column q is its own diagonal −1; every other pivot is positive (SPD rest).
+    for (const seed of [1, 2, 3, 4]) {
+      const q = 7 * seed;
+      const A = withIsolated(40, q, -1);
+      const e = caught(() => factorize(analyse(A, randomPermutation(40, seed)), A));
+      expect(e).toBeInstanceOf(NotPositiveDefiniteError);
+      expect((e as NotPositiveDefiniteError).column).toBe(q);
+      expect((e as NotPositiveDefiniteError).pivot).toBe(-1);
+      expect((e as Error).message).toContain("-1");
+      expect((e as Error).message).toContain(`column ${q}`);
+    }
+  });
+
+  it("Cholesky: the 2×2 block [[1, 2], [2, 1]] fails at whichever of its columns is eliminated second (pivot 1 − 4 = −3)", () => {
+    const r = [0, 1, 1, 2, 3, 3, 4], c = [0, 1, 0, 2, 3, 1, 4], v = [5, 1, 0, 5, 1, 2, 5];
+    // entries: (1,1)=1, (3,3)=1, (3,1)=2 → block on original indices 1 and 3.
+    const A = SparseMatrix.fromTriplets(5, 5, r, c, v);
+    for (const seed of [1, 2, 3, 4, 5, 6]) {
+      const input = analyse(A, randomPermutation(5, seed));
+      const later = input.inversePermutation[1] > input.inversePermutation[3] ? 1 : 3;
+      const e = caught(() => factorize(input, A)) as NotPositiveDefiniteError;
+      expect(e).toBeInstanceOf(NotPositiveDefiniteError);
+      expect(e.column).toBe(later);
+      expect(e.pivot).toBeCloseTo(-3, 14);
+    }
+  });
+
+  it("L·D·Lᵀ: a zero pivot and a tiny pivot (relative to max|a_ij|) stop it with the original column", () => {
+    const Z = withIsolated(30, 12, 0);
+    const e = caught(() => factorize(analyse(Z, randomPermutation(30, 9)), Z, { method: "ldlt" })) as NotPositiveDefiniteError;
+    expect(e).toBeInstanceOf(NotPositiveDefiniteError);
+    expect(e.column).toBe(12);
+    // [[1, 1], [1, 1 + 1e-14]]: second pivot 1e-14 (to rounding) ≤ 1e-12 · max|a| = 1e-12.
+    const T = SparseMatrix.fromTriplets(2, 2, [0, 1, 1], [0, 0, 1], [1, 1, 1 + 1e-14]);
+    const t = caught(() => factorize(analyse(T), T, { method: "ldlt" })) as NotPositiveDefiniteError;
+    expect(t).toBeInstanceOf(NotPositiveDefiniteError);
+    expect(t.column).toBe(1);
+    // With a smaller tolerance the same matrix factors and is positive definite.
+    const ok = factorize(analyse(T), T, { method: "ldlt", pivotTolerance: 1e-16 });
+    expect(ok.inertia()).toEqual({ positive: 2, negative: 0, zero: 0 });
+  });
+});
+
+describe("a failed or aborted factorization refuses to solve until a refactor succeeds", () => {
+  it("after a pivot failure in refactor", () => {
+    const good = withIsolated(20, 4, 3), bad = withIsolated(20, 4, -3);
+    const F = factorize(analyse(good), good);
+    const b = new Float64Array(20).fill(1);
+    F.solve(b);
+    expect(() => F.refactor(bad)).toThrow(NotPositiveDefiniteError);
+    expect(() => F.solve(b)).toThrow(SeptumError);
+    expect(() => F.logDeterminant()).toThrow(/not usable/);
+    expect(() => F.inertia()).toThrow(SeptumError);
+    expect(() => F.stats).toThrow(SeptumError);
+    F.refactor(good);
+    expect(F.solve(b)[4]).toBeCloseTo(1 / 3, 14);
+  });
+
+  it("abort before start and between supernodes", () => {
+    const A = grid2d(25).matrix;
+    const input = analyse(A, randomPermutation(625, 1));
+    const pre = new AbortController();
+    pre.abort();
+    expect(() => factorize(input, A, { signal: pre.signal })).toThrow(AbortedError);
+    const F = factorize(input, A);
+    const mid = new AbortController();
+    expect(() => F.refactor(A, { signal: mid.signal, onProgress: (f) => { if (f > 0.3) mid.abort(); } })).toThrow(AbortedError);
+    expect(() => F.solve(new Float64Array(625))).toThrow(/not usable/);
+    F.refactor(A);
+    expect(F.solve(new Float64Array(625).fill(1)).every(Number.isFinite)).toBe(true);
+  });
+});
+
+describe("bad input", () => {
+  it("a pattern different from the analysed one is a PatternMismatchError (refactor and first factor)", () => {
+    const A = randomSpd(15, 0.2, 1);
+    const input = analyse(A);
+    const F = factorize(input, A);
+    const other = randomSpd(15, 0.2, 2);
+    expect(() => F.refactor(other)).toThrow(PatternMismatchError);
+    expect(() => F.solve(new Float64Array(15))).toThrow(SeptumError);
+    // An entry outside the analysed structure at the first factorization; the message names it.
+    const tri = SparseMatrix.fromTriplets(3, 3, [0, 1, 2], [0, 1, 2], [1, 1, 1]);
+    const extra = SparseMatrix.fromTriplets(3, 3, [0, 1, 2, 2], [0, 1, 2, 0], [1, 1, 1, 0.1]);
+    expect(() => factorize(analyse(tri), extra)).toThrow(/entry \(2, 0\)/);
+    expect(() => factorize(analyse(tri), randomSpd(4, 0.5, 1))).toThrow(PatternMismatchError);
+  });
+
+  it("full storage whose triangles disagree is a NotSymmetricError naming the entry", () => {
+    const A = asFull(SparseMatrix.fromTriplets(6, 6, [0, 1, 2, 3, 4, 5, 4, 2, 5], [0, 1, 2, 3, 4, 5, 1, 0, 3], [4, 4, 4, 4, 4, 4, -1, -1, -1]));
+    const vals = A.values.slice();
+    // Find stored (4, 1) and perturb it only.
+    let target = -1;
+    for (let p = A.colPtr[1]; p < A.colPtr[2]; p++) if (A.rowIdx[p] === 4) target = p;
+    if (target < 0) throw new Error("fixture lacks entry (4,1)");
+    vals[target] += 1;
+    const B = SparseMatrix.fromCSC(6, 6, A.colPtr, A.rowIdx, vals);
+    const e = caught(() => factorize(analyse(A), B)) as NotSymmetricError;
+    expect(e).toBeInstanceOf(NotSymmetricError);
+    expect([e.row, e.column].sort()).toEqual([1, 4]);
+  });
+
+  it("wrong right-hand side length, non-finite right-hand side, bad options", () => {
+    const A = randomSpd(10, 0.3, 1);
+    const F = factorize(analyse(A), A);
+    expect(() => F.solve(new Float64Array(7))).toThrow(InputError);
+    expect(() => F.solve(new Float64Array(15))).toThrow(/length 15/);
+    expect(() => F.solve([])).toThrow(InputError);
+    const b = new Float64Array(10); b[3] = NaN;
+    expect(() => F.solve(b)).toThrow(/entry 3/);
+    expect(() => factorize(analyse(A), A, { method: "lu" as never })).toThrow(InputError);
+    expect(() => factorize(analyse(A), A, { method: "ldlt", pivotTolerance: -1 })).toThrow(InputError);
+  });
+});

@@ -1,0 +1,80 @@
+/**
+ * L·D·Lᵀ without pivoting on quasi-definite and SPD matrices. Outside
+ * references: Vanderbei 1995 (SIAM J. Optim. 5(1)): a quasi-definite
+ * [[H, Bᵀ], [B, −C]] (H, C positive definite) factors as L·D·Lᵀ for every
+ * symmetric permutation, and D then has n₁ positive and n₂ negative entries
+ * (Sylvester's law of inertia); ml-matrix's determinant and solve on small
+ * cases; Cholesky's factor on SPD matrices (D = diag(L)², common practice).
+ */
+import fc from "fast-check";
+import { Matrix, determinant, solve as denseSolve } from "ml-matrix";
+import { describe, expect, it } from "vitest";
+import { grid2d } from "../src/generate/grids.js";
+import { SparseMatrix } from "../src/matrix/sparse.js";
+import { factorize } from "../src/numeric/index.js";
+import { EPS, analyse, asFull, dense, denseBackwardError, randomPermutation, randomSpd, rng } from "./numeric-support.js";
+
+/** [[H, Bᵀ], [B, −C]] with H, C sparse diagonally dominant SPD and B sparse random; lower triangle. */
+function quasiDefinite(n1: number, n2: number, seed: number, density = 0.15): SparseMatrix {
+  const r = rng(seed), rows: number[] = [], cols: number[] = [], vals: number[] = [];
+  const H = randomSpd(n1, density, seed), C = randomSpd(n2, density, seed + 7, 1e-2);
+  for (let j = 0; j < n1; j++) for (let p = H.colPtr[j]; p < H.colPtr[j + 1]; p++) { rows.push(H.rowIdx[p]); cols.push(j); vals.push(H.values[p]); }
+  for (let j = 0; j < n2; j++) for (let p = C.colPtr[j]; p < C.colPtr[j + 1]; p++) { rows.push(n1 + C.rowIdx[p]); cols.push(n1 + j); vals.push(-C.values[p]); }
+  for (let i = 0; i < n2; i++) for (let j = 0; j < n1; j++) if (r() < density) { rows.push(n1 + i); cols.push(j); vals.push(r() * 4 - 2); }
+  return SparseMatrix.fromTriplets(n1 + n2, n1 + n2, rows, cols, vals);
+}
+
+describe("quasi-definite saddle-point systems", () => {
+  it("solve has backward error below 10·n·ε and inertia (n₁, n₂, 0) for any ordering (property)", () => {
+    fc.assert(
+      fc.property(fc.integer({ min: 1, max: 40 }), fc.integer({ min: 1, max: 30 }), fc.integer(), (n1, n2, seed) => {
+        const A = quasiDefinite(n1, n2, seed), n = n1 + n2;
+        const F = factorize(analyse(A, randomPermutation(n, seed)), A, { method: "ldlt" });
+        expect(F.method).toBe("ldlt");
+        expect(F.inertia()).toEqual({ positive: n1, negative: n2, zero: 0 });
+        expect(F.determinantSign()).toBe(n2 % 2 === 0 ? 1 : -1);
+        const r = rng(seed + 3), b = Float64Array.from({ length: n }, () => r() - 0.5);
+        const info = F.solveWithInfo(b, { refine: 2 });
+        expect(info.backwardError).toBeLessThanOrEqual(10 * n * EPS);
+        expect(denseBackwardError(dense(A), info.x, b)).toBeLessThanOrEqual(10 * n * EPS);
+      }),
+      { numRuns: 50 },
+    );
+  });
+
+  it("log|det| and its sign match ml-matrix's determinant; x matches ml-matrix's solve", () => {
+    for (const [n1, n2, seed] of [[6, 3, 1], [10, 5, 2], [4, 8, 3], [12, 1, 4]]) {
+      const A = quasiDefinite(n1, n2, seed, 0.3), n = n1 + n2;
+      const F = factorize(analyse(asFull(A), randomPermutation(n, seed)), asFull(A), { method: "ldlt" });
+      const det = determinant(dense(A)); // ml-matrix (LU)
+      expect(F.logDeterminant()).toBeCloseTo(Math.log(Math.abs(det)), 9);
+      expect(F.determinantSign()).toBe(Math.sign(det));
+      const b = Float64Array.from({ length: n }, (_, i) => Math.cos(i));
+      const x = F.solve(b);
+      const xr = denseSolve(dense(A), Matrix.columnVector(Array.from(b)));
+      for (let i = 0; i < n; i++) expect(x[i]).toBeCloseTo(xr.get(i, 0), 9);
+    }
+  });
+});
+
+describe("L·D·Lᵀ on SPD matrices agrees with Cholesky", () => {
+  it("same log det, same solution to rounding, all-positive inertia", () => {
+    const A = grid2d(18).matrix, n = A.ncols;
+    const input = analyse(A, randomPermutation(n, 11));
+    const C = factorize(input, A), L = factorize(input, A, { method: "ldlt" });
+    expect(Math.abs(C.logDeterminant() - L.logDeterminant())).toBeLessThan(1e-10 * Math.abs(C.logDeterminant()));
+    expect(L.inertia()).toEqual({ positive: n, negative: 0, zero: 0 });
+    expect(C.inertia()).toEqual({ positive: n, negative: 0, zero: 0 });
+    const b = Float64Array.from({ length: n }, (_, i) => Math.sin(i + 1));
+    const x1 = C.solve(b), x2 = L.solve(b);
+    for (let i = 0; i < n; i++) expect(Math.abs(x1[i] - x2[i])).toBeLessThan(1e-11 * (1 + Math.abs(x1[i])));
+    // Multiple right-hand sides through the D sweep too.
+    const B = new Float64Array(3 * n).map((_, i) => Math.cos(i));
+    const X = L.solve(B);
+    for (let c = 0; c < 3; c++) {
+      expect(denseBackwardError(dense(A), X.subarray(c * n, (c + 1) * n), B.subarray(c * n, (c + 1) * n))).toBeLessThan(10 * n * EPS);
+    }
+    expect(L.stats.method).toBe("ldlt");
+    expect(L.stats.peakBytes).toBeGreaterThan(C.stats.peakBytes - 1); // ldlt adds a scratch block
+  });
+});
