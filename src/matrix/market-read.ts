@@ -269,22 +269,24 @@ function readArray(c: Cursor, banner: Banner, comments: string[]): MarketDense {
   const [m, n] = readSizeLine(c, 2, "rows columns") as [number, number];
   if (banner.symmetric) checkSquare(sizeLine, m, n);
   const count = banner.symmetric ? (n * (n + 1)) / 2 : m * n;
-  // Every value needs at least "v\n" (2 bytes): refuse sizes the text cannot hold.
-  if (count > (c.bytes.length - c.pos + 1) / 2) {
-    throw new MatrixMarketError(c.lastLine(), `file ends before the ${count} values announced on line ${sizeLine}`);
-  }
-  const values = new Float64Array(m * n);
+  // Every value needs at least "v\n" (2 bytes): a count the text cannot hold
+  // is never allocated; reading then stops at the end of the text with an error.
+  const fits = count <= (c.bytes.length - c.pos + 1) / 2;
+  const values = new Float64Array(fits ? m * n : 0);
   const integer = banner.field === "integer";
+  let read = 0;
   for (let j = 0; j < n; j++) {
     for (let i = banner.symmetric ? j : 0; i < m; i++) {
       if (!c.toContent(comments)) {
-        const read = banner.symmetric ? (j * (2 * n - j + 1)) / 2 + (i - j) : j * m + i;
         throw new MatrixMarketError(c.lastLine(), `file ends after ${read} of the ${count} values announced on line ${sizeLine}`);
       }
       const v = readValue(c, integer);
       if (!c.atLineEnd()) wrongFieldCount(c, 1, 1, "value");
-      values[j * m + i] = v;
-      if (banner.symmetric) values[i * m + j] = v;
+      if (fits) {
+        values[j * m + i] = v;
+        if (banner.symmetric) values[i * m + j] = v;
+      }
+      read++;
       c.nextLine();
     }
   }

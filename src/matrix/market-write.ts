@@ -9,15 +9,17 @@
  */
 
 import { InputError, NotSymmetricError } from "../errors.js";
-import { SparseMatrix } from "./sparse.js";
+import type { SparseMatrix } from "./sparse.js";
+import { lowerTriangle } from "./symmetric.js";
 import type { MarketField } from "./market-read.js";
 
 /** Options of `writeMatrixMarket`. */
 export interface MarketWriteOptions {
   /**
    * Write a `symmetric` file: the lower triangle only. The matrix may store the
-   * lower triangle, the upper one, or both (then they must agree exactly,
-   * otherwise NotSymmetricError). Default false.
+   * lower triangle, the upper one, or both (then they must agree, up to the
+   * rounding tolerance of `lowerTriangle`, otherwise NotSymmetricError).
+   * Default false.
    */
   symmetric?: boolean;
   /** Value field: `real` (default), `integer` (values must be integers) or `pattern` (no values). */
@@ -125,80 +127,10 @@ export function writeMatrixMarket(matrix: SparseMatrix, options: MarketWriteOpti
   return out.text();
 }
 
-/**
- * The lower triangle (diagonal included) of a square matrix stored as its
- * lower triangle, its upper triangle, or both (which must then agree exactly).
- */
+/** The lower triangle of a square matrix in any symmetric storage form (checked by lowerTriangle). */
 function lowerTriangleOf(a: SparseMatrix): SparseMatrix {
   if (a.nrows !== a.ncols) throw new InputError(`a symmetric file needs a square matrix, this one is ${a.nrows} × ${a.ncols}`);
-  let below = 0;
-  let above = 0;
-  for (let j = 0; j < a.ncols; j++) {
-    for (let p = a.colPtr[j]!; p < a.colPtr[j + 1]!; p++) {
-      const i = a.rowIdx[p]!;
-      if (i > j) below++;
-      else if (i < j) above++;
-    }
-  }
-  if (above === 0) return a;
-  const t = a.transpose();
-  if (below === 0) return t;
-  checkTrianglesAgree(a, t);
-  return keepLower(a);
-}
-
-/** Compare the strictly lower part of `a` with that of `t` = aᵀ, column by column. */
-function checkTrianglesAgree(a: SparseMatrix, t: SparseMatrix): void {
-  for (let j = 0; j < a.ncols; j++) {
-    let p = firstBelow(a, j);
-    let q = firstBelow(t, j);
-    const pEnd = a.colPtr[j + 1]!;
-    const qEnd = t.colPtr[j + 1]!;
-    while (p < pEnd || q < qEnd) {
-      const ia = p < pEnd ? a.rowIdx[p]! : a.nrows;
-      const it = q < qEnd ? t.rowIdx[q]! : a.nrows;
-      if (ia !== it) {
-        const i = Math.min(ia, it);
-        const missing = ia < it ? `(${j}, ${i})` : `(${i}, ${j})`;
-        throw new NotSymmetricError(i, j, `matrix is not symmetric: entry (${i}, ${j}) has no mirror ${missing}`);
-      }
-      if (a.values[p] !== t.values[q]) {
-        throw new NotSymmetricError(ia, j, `matrix is not symmetric: entry (${ia}, ${j}) = ${a.values[p]} but (${j}, ${ia}) = ${t.values[q]}`);
-      }
-      p++;
-      q++;
-    }
-  }
-}
-
-/** Position of the first entry strictly below the diagonal in column j (rows are sorted). */
-function firstBelow(a: SparseMatrix, j: number): number {
-  let p = a.colPtr[j]!;
-  const end = a.colPtr[j + 1]!;
-  while (p < end && a.rowIdx[p]! <= j) p++;
-  return p;
-}
-
-/** The entries of `a` on or below the diagonal, as a new matrix (rows stay sorted). */
-function keepLower(a: SparseMatrix): SparseMatrix {
-  const n = a.ncols;
-  const ptr = new Int32Array(n + 1);
-  for (let j = 0; j < n; j++) {
-    let p = a.colPtr[j]!;
-    while (p < a.colPtr[j + 1]! && a.rowIdx[p]! < j) p++;
-    ptr[j + 1] = ptr[j]! + (a.colPtr[j + 1]! - p);
-  }
-  const idx = new Int32Array(ptr[n]!);
-  const val = new Float64Array(ptr[n]!);
-  let q = 0;
-  for (let j = 0; j < n; j++) {
-    for (let p = a.colPtr[j]!; p < a.colPtr[j + 1]!; p++) {
-      if (a.rowIdx[p]! < j) continue;
-      idx[q] = a.rowIdx[p]!;
-      val[q++] = a.values[p]!;
-    }
-  }
-  return SparseMatrix.trusted(n, n, ptr, idx, val);
+  return lowerTriangle(a);
 }
 
 /**
