@@ -77,6 +77,8 @@ function splitNodes(mesh: TriangleMesh, problem: P1Problem) {
   return { nodeOf: Int32Array.from(free), unknownOf, dirichlet };
 }
 
+const BX = new Float64Array(3), BY = new Float64Array(3);
+
 /** Element stiffness ke (3×3, row-major) and load fe of the triangle with nodes v. */
 function elementMatrices(xy: Float64Array, v: Int32Array, p: P1Problem, ke: Float64Array, fe: Float64Array): void {
   const x0 = xy[2 * v[0]], y0 = xy[2 * v[0] + 1];
@@ -88,7 +90,8 @@ function elementMatrices(xy: Float64Array, v: Int32Array, p: P1Problem, ke: Floa
   const by0 = (x2 - x1) / twiceArea, by1 = (x0 - x2) / twiceArea, by2 = (x1 - x0) / twiceArea;
   const cx = (x0 + x1 + x2) / 3, cy = (y0 + y1 + y2) / 3;
   const k = typeof p.kappa === "number" ? p.kappa : p.kappa(cx, cy);
-  const bx = [bx0, bx1, bx2], by = [by0, by1, by2];
+  const bx = BX, by = BY;
+  bx[0] = bx0; bx[1] = bx1; bx[2] = bx2; by[0] = by0; by[1] = by1; by[2] = by2;
   for (let a = 0; a < 3; a++) {
     for (let b = 0; b < 3; b++) ke[3 * a + b] = k * area * (bx[a] * bx[b] + by[a] * by[b]);
   }
@@ -106,4 +109,25 @@ export function expandSolution(system: P1System, x: Float64Array): Float64Array 
   const u = Float64Array.from(system.dirichlet);
   for (let i = 0; i < system.nodeOf.length; i++) u[system.nodeOf[i]] = x[i];
   return u;
+}
+
+/**
+ * Net flow out of the domain through the Dirichlet nodes, Σ_d (K u − F)_d over
+ * the full (unreduced) system: by conservation it balances the total source
+ * ∫ f (a check of the assembled solution, common practice).
+ */
+export function dirichletOutflow(mesh: TriangleMesh, problem: P1Problem, system: P1System, u: Float64Array): number {
+  const ke = new Float64Array(9), fe = new Float64Array(3), v = new Int32Array(3);
+  let out = 0;
+  for (let t = 0; t < mesh.triangles.length; t += 3) {
+    for (let a = 0; a < 3; a++) v[a] = mesh.triangles[t + a];
+    elementMatrices(mesh.coords, v, problem, ke, fe);
+    for (let a = 0; a < 3; a++) {
+      if (system.unknownOf[v[a]] >= 0) continue;
+      let r = -fe[a];
+      for (let b = 0; b < 3; b++) r += ke[3 * a + b] * u[v[b]];
+      out -= r;
+    }
+  }
+  return out;
 }

@@ -37,15 +37,25 @@ export function binSymmetric(n: number, colPtr: Int32Array, rowIdx: Int32Array, 
   return { n, size, counts };
 }
 
-/** Bin the lower-triangular pattern of L from its supernodal structure. */
-export function binFactor(s: SupernodalStructure, size: number): Binning {
+/**
+ * Bin the pattern of L from its supernodal structure, drawn in the lower
+ * triangle. With `relabel` (structure position → drawn position) L is shown
+ * in another numbering, e.g. that of an ordering whose equivalent reordering
+ * the structure uses (the filled graph is the same, so L relabelled is the
+ * factor in that numbering).
+ */
+export function binFactor(s: SupernodalStructure, size: number, relabel: Int32Array | null = null): Binning {
   const counts = new Float64Array(size * size);
   const scale = size / s.n;
   for (let k = 0; k < s.supernodeCount; k++) {
     const c0 = s.superStart[k], c1 = s.superStart[k + 1], r0 = s.rowPtr[k], r1 = s.rowPtr[k + 1];
     for (let j = c0; j < c1; j++) {
-      const cj = Math.floor(j * scale);
-      for (let p = r0 + (j - c0); p < r1; p++) counts[Math.floor(s.rowIdx[p] * scale) * size + cj]++;
+      const jj = relabel ? relabel[j] : j;
+      for (let p = r0 + (j - c0); p < r1; p++) {
+        const ii = relabel ? relabel[s.rowIdx[p]] : s.rowIdx[p];
+        const hi = ii > jj ? ii : jj, lo = ii > jj ? jj : ii;
+        counts[Math.floor(hi * scale) * size + Math.floor(lo * scale)]++;
+      }
     }
   }
   return { n: s.n, size, counts };

@@ -60,7 +60,8 @@ export function renderReport(r: ReportInput): string {
     }));
   }
   if (shown?.structure) {
-    const lUrl = img(densityPixels(binFactor(shown.structure, size)), warm);
+    const relabel = inverse && shown.structurePermutation ? compose(inverse, shown.structurePermutation) : null;
+    const lUrl = img(densityPixels(binFactor(shown.structure, size, relabel)), warm);
     const overlay = shown.separatorTree ? separatorOverlay(shown.separatorTree, r.n, PX, true, 5) : undefined;
     panels.push(matrixPanel({
       title: `L, ${shown.name}`, n: r.n, imageUrl: lUrl, px: PX, overlay,
@@ -98,4 +99,11 @@ function invert(p: Int32Array): Int32Array {
   const inv = new Int32Array(p.length);
   for (let k = 0; k < p.length; k++) inv[p[k]] = k;
   return inv;
+}
+
+/** position in the structure's numbering → position in the drawn numbering */
+function compose(drawnInverse: Int32Array, structurePermutation: Int32Array): Int32Array {
+  const r = new Int32Array(structurePermutation.length);
+  for (let k = 0; k < r.length; k++) r[k] = drawnInverse[structurePermutation[k]];
+  return r;
 }

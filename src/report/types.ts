@@ -25,6 +25,8 @@ export interface ReportOrdering {
   readonly permutation?: Int32Array;
   readonly separatorTree?: SeparatorTree;
   readonly structure?: SupernodalStructure;
+  /** new → old permutation the structure is numbered in, when it differs from `permutation` */
+  readonly structurePermutation?: Int32Array;
 }
 
 /** Everything the page shows. */

@@ -1,0 +1,79 @@
+/**
+ * Reading and writing the files the command works on, with errors that name
+ * the file and, for Matrix Market problems, the line.
+ */
+import { readFileSync, statSync, writeFileSync, mkdirSync } from "node:fs";
+import { dirname, resolve } from "node:path";
+import { MatrixMarketError } from "../errors.js";
+import { readMatrixMarket } from "../matrix/market.js";
+import type { SparseMatrix } from "../matrix/sparse.js";
+import { FileError, type CliIO } from "./io.js";
+
+/** Bytes of a file; FileError for a missing file, a directory or an empty file. */
+export function readBytes(io: CliIO, path: string): Uint8Array {
+  const full = resolve(io.cwd, path);
+  let size: number;
+  try {
+    const st = statSync(full);
+    if (st.isDirectory()) throw new FileError(`${path}: is a directory, expected a Matrix Market file`);
+    size = st.size;
+  } catch (e) {
+    if (e instanceof FileError) throw e;
+    const code = (e as NodeJS.ErrnoException).code;
+    throw new FileError(code === "ENOENT" ? `${path}: no such file` : `${path}: cannot read (${code ?? String(e)})`);
+  }
+  if (size === 0) throw new FileError(`${path}: the file is empty, expected a Matrix Market file`);
+  try {
+    return readFileSync(full);
+  } catch (e) {
+    throw new FileError(`${path}: cannot read (${(e as NodeJS.ErrnoException).code ?? String(e)})`);
+  }
+}
+
+/** A square sparse matrix from a Matrix Market `coordinate` file. */
+export function readMatrixFile(io: CliIO, path: string): { matrix: SparseMatrix; symmetricFile: boolean } {
+  const bytes = readBytes(io, path);
+  let contents;
+  try {
+    contents = readMatrixMarket(bytes);
+  } catch (e) {
+    if (e instanceof MatrixMarketError) throw new FileError(`${path}: ${e.message}`);
+    throw e;
+  }
+  if (contents.kind !== "sparse") throw new FileError(`${path}: is a dense 'array' file, expected a sparse 'coordinate' matrix`);
+  const A = contents.matrix;
+  if (A.nrows !== A.ncols) throw new FileError(`${path}: the matrix is ${A.nrows} × ${A.ncols}, expected a square matrix`);
+  return { matrix: A, symmetricFile: contents.symmetric };
+}
+
+/** Right-hand sides (n × k, column-major) from an `array` or `coordinate` file. */
+export function readRhsFile(io: CliIO, path: string, n: number): { values: Float64Array; columns: number } {
+  const bytes = readBytes(io, path);
+  let contents;
+  try {
+    contents = readMatrixMarket(bytes);
+  } catch (e) {
+    if (e instanceof MatrixMarketError) throw new FileError(`${path}: ${e.message}`);
+    throw e;
+  }
+  const rows = contents.kind === "dense" ? contents.nrows : contents.matrix.nrows;
+  const cols = contents.kind === "dense" ? contents.ncols : contents.matrix.ncols;
+  if (rows !== n) throw new FileError(`${path}: has ${rows} rows, but the matrix has ${n}`);
+  if (cols < 1) throw new FileError(`${path}: has no columns`);
+  if (contents.kind === "dense") return { values: contents.values, columns: cols };
+  const values = new Float64Array(n * cols);
+  const M = contents.matrix;
+  for (let j = 0; j < cols; j++) for (let p = M.colPtr[j]; p < M.colPtr[j + 1]; p++) values[j * n + M.rowIdx[p]] = M.values[p];
+  return { values, columns: cols };
+}
+
+/** Write text, creating the directory; FileError naming the path on failure. */
+export function writeText(io: CliIO, path: string, text: string): void {
+  const full = resolve(io.cwd, path);
+  try {
+    mkdirSync(dirname(full), { recursive: true });
+    writeFileSync(full, text);
+  } catch (e) {
+    throw new FileError(`${path}: cannot write (${(e as NodeJS.ErrnoException).code ?? String(e)})`);
+  }
+}

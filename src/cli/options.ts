@@ -1,0 +1,72 @@
+/**
+ * Command-line options of every sub-command, parsed with node:util parseArgs
+ * (strict), and the checks that turn bad values into UsageError messages.
+ */
+import { parseArgs } from "node:util";
+import type { OrderingName } from "../solver/analyze.js";
+import { UsageError } from "./io.js";
+
+export const ORDERINGS: readonly OrderingName[] = ["nested-dissection", "minimum-degree", "reverse-cuthill-mckee", "natural"];
+const ALIASES: Record<string, OrderingName> = { nd: "nested-dissection", md: "minimum-degree", rcm: "reverse-cuthill-mckee" };
+
+type Spec = Record<string, { type: "string" | "boolean"; short?: string }>;
+
+const COMMON: Spec = {
+  help: { type: "boolean", short: "h" },
+  quiet: { type: "boolean", short: "q" },
+  debug: { type: "boolean" },
+};
+
+export const SPECS: Record<string, Spec> = {
+  solve: { ...COMMON, rhs: { type: "string" }, output: { type: "string", short: "o" }, ordering: { type: "string" }, method: { type: "string" }, json: { type: "boolean" }, seed: { type: "string" }, kernels: { type: "string" } },
+  analyze: { ...COMMON, ordering: { type: "string" }, json: { type: "boolean" }, compare: { type: "boolean" }, seed: { type: "string" } },
+  report: { ...COMMON, output: { type: "string", short: "o" }, ordering: { type: "string" }, seed: { type: "string" } },
+  generate: { ...COMMON, output: { type: "string", short: "o" }, stencil: { type: "string" }, contrast: { type: "string" }, degree: { type: "string" }, seed: { type: "string" } },
+  demo: { ...COMMON, output: { type: "string", short: "o" }, size: { type: "string" } },
+};
+
+export type Parsed = { values: Record<string, string | boolean | undefined>; positionals: string[] };
+
+/** Parse the arguments after the sub-command name. */
+export function parseCommand(command: string, args: string[]): Parsed {
+  try {
+    const r = parseArgs({ args, options: SPECS[command], allowPositionals: true, strict: true });
+    return { values: r.values as Parsed["values"], positionals: r.positionals };
+  } catch (e) {
+    const msg = e instanceof Error ? e.message.replace(/\. To specify a positional argument.*$/s, "") : String(e);
+    throw new UsageError(`${command}: ${msg.replace(/^Unknown option/, "unknown option")}`);
+  }
+}
+
+/** The ordering named by --ordering (full names or nd, md, rcm). */
+export function orderingOption(v: string | boolean | undefined, fallback: OrderingName = "nested-dissection"): OrderingName {
+  if (v === undefined) return fallback;
+  const name = String(v).toLowerCase();
+  const o = ALIASES[name] ?? (ORDERINGS as readonly string[]).find((x) => x === name);
+  if (!o) throw new UsageError(`--ordering: unknown ordering '${v}'; expected ${ORDERINGS.join(", ")} (or nd, md, rcm)`);
+  return o;
+}
+
+/** --method cholesky|ldlt. */
+export function methodOption(v: string | boolean | undefined): "cholesky" | "ldlt" {
+  if (v === undefined) return "cholesky";
+  if (v === "cholesky" || v === "ldlt") return v;
+  throw new UsageError(`--method: unknown method '${v}'; expected cholesky or ldlt`);
+}
+
+/** A numeric option within [lo, hi]; integer when asked. */
+export function numberOption(name: string, v: string | boolean | undefined, fallback: number, lo: number, hi: number, integer = false): number {
+  if (v === undefined) return fallback;
+  const x = Number(v);
+  if (typeof v !== "string" || v.trim() === "" || !Number.isFinite(x) || x < lo || x > hi || (integer && !Number.isInteger(x))) {
+    throw new UsageError(`--${name}: expected ${integer ? "an integer" : "a number"} in ${lo}..${hi}, got '${v}'`);
+  }
+  return x;
+}
+
+/** Exactly `count` positional arguments, named for the message. */
+export function positionals(command: string, p: string[], names: string[]): string[] {
+  if (p.length < names.length) throw new UsageError(`${command}: missing ${names.slice(p.length).join(" and ")} (see septum ${command} --help)`);
+  if (p.length > names.length) throw new UsageError(`${command}: unexpected argument '${p[names.length]}' (see septum ${command} --help)`);
+  return p;
+}

@@ -1,0 +1,45 @@
+/**
+ * The steps shared by solve, analyze, report and demo: read a matrix and
+ * check its symmetry, analyze it with progress, and turn library errors into
+ * messages in the file's 1-based numbering.
+ */
+import { NotPositiveDefiniteError, NotSymmetricError } from "../errors.js";
+import type { SparseMatrix } from "../matrix/sparse.js";
+import { lowerTriangle } from "../matrix/symmetric.js";
+import { analyze, type OrderingName, type Progress } from "../solver/analyze.js";
+import type { Analysis } from "../solver/analysis.js";
+import { readMatrixFile } from "./files.js";
+import { FileError, type CliIO } from "./io.js";
+import type { ProgressLine } from "./progress.js";
+
+const PHASE_LABEL: Record<Progress["phase"], string> = { ordering: "ordering", symbolic: "symbolic", factor: "factor" };
+
+/** onProgress callback drawing the phase on the progress line. */
+export function progressCallback(line: ProgressLine, prefix = ""): (p: Progress) => void {
+  return (p) => line.update(prefix + PHASE_LABEL[p.phase], p.fraction);
+}
+
+/** Read A and reduce it to its lower triangle; a general file whose triangles disagree is an error naming the entry. */
+export function loadSymmetric(io: CliIO, path: string): { lower: SparseMatrix; symmetricFile: boolean } {
+  const { matrix, symmetricFile } = readMatrixFile(io, path);
+  try {
+    return { lower: symmetricFile ? matrix : lowerTriangle(matrix), symmetricFile };
+  } catch (e) {
+    if (e instanceof NotSymmetricError) {
+      const i = e.row + 1, j = e.column + 1;
+      throw new FileError(`${path}: the matrix is not symmetric: entry (${i}, ${j}) does not match entry (${j}, ${i}); Cholesky and L·D·Lᵀ need a symmetric matrix`);
+    }
+    throw e;
+  }
+}
+
+/** Analyze with one ordering, with the file named on failure. */
+export function analyzeWith(A: SparseMatrix, ordering: OrderingName, seed: number, line: ProgressLine, prefix = ""): Analysis {
+  return analyze(A, { ordering, seed, onProgress: progressCallback(line, prefix) });
+}
+
+/** Rephrase a pivot failure in the file's 1-based numbering. */
+export function pivotMessage(path: string, e: NotPositiveDefiniteError, method: string): string {
+  const hint = method === "cholesky" ? " (for a quasi-definite matrix try --method ldlt)" : "";
+  return `${path}: the matrix is not positive definite: ${method === "cholesky" ? "pivot" : "tiny pivot"} ${e.pivot.toPrecision(3)} at column ${e.column + 1}${hint}`;
+}

@@ -1,0 +1,51 @@
+/** `septum report`: the HTML page for one matrix. */
+import type { SparseMatrix } from "../matrix/sparse.js";
+import type { OrderingName } from "../solver/analyze.js";
+import { renderReport } from "../report/page.js";
+import type { ReportInput, ReportOrdering } from "../report/types.js";
+import { analyzeAll, type Analysed } from "./analyze.js";
+import { writeText } from "./files.js";
+import { UsageError, type CliIO } from "./io.js";
+import { numberOption, orderingOption, ORDERINGS, positionals, type Parsed } from "./options.js";
+import { loadSymmetric } from "./pipeline.js";
+import { progressLine } from "./progress.js";
+import { VERSION } from "./version.js";
+
+/** Report input from analyses of the lower triangle of A. */
+export function reportInput(title: string, source: string, A: SparseMatrix, list: readonly Analysed[], shown: OrderingName, factorSeconds?: readonly number[]): ReportInput {
+  const orderings: ReportOrdering[] = list.map((a, i) => ({
+    name: a.ordering,
+    permutation: a.analysis.orderingPermutation,
+    separatorTree: a.analysis.separatorTree,
+    structure: a.analysis.structure,
+    structurePermutation: a.analysis.permutation,
+    figures: {
+      nnzL: a.analysis.stats.nnzL, flops: a.analysis.stats.flops, supernodes: a.analysis.stats.supernodes,
+      factorBytes: a.analysis.stats.factorBytes, orderingSeconds: a.analysis.stats.orderingSeconds, analyzeSeconds: a.seconds,
+      factorSeconds: factorSeconds?.[i],
+    },
+  }));
+  const nnzLower = A.colPtr[A.ncols];
+  let diag = 0;
+  for (let j = 0; j < A.ncols; j++) for (let p = A.colPtr[j]; p < A.colPtr[j + 1]; p++) if (A.rowIdx[p] === j) diag++;
+  return {
+    title, source, n: A.ncols, lowerColPtr: A.colPtr, lowerRowIdx: A.rowIdx, nnzA: 2 * nnzLower - diag,
+    orderings, shown: Math.max(0, list.findIndex((a) => a.ordering === shown)),
+    footer: `Made by septum ${VERSION} on ${new Date().toISOString().slice(0, 10)}.`,
+  };
+}
+
+export function reportCommand(io: CliIO, p: Parsed): number {
+  const [path] = positionals("report", p.positionals, ["the matrix file A.mtx"]);
+  if (!p.values.output) throw new UsageError("report: -o report.html is required");
+  const shown = orderingOption(p.values.ordering);
+  const seed = numberOption("seed", p.values.seed, 1, 0, 2 ** 31 - 1, true);
+  const line = progressLine(io, io.stderrIsTTY && !p.values.quiet);
+  const { lower: A } = loadSymmetric(io, path);
+  const list = analyzeAll(io, A, ORDERINGS, seed, line);
+  line.done();
+  const html = renderReport(reportInput(`Sparsity report: ${path}`, `${path} — symmetric, n = ${A.ncols}`, A, list, shown));
+  writeText(io, String(p.values.output), html);
+  if (!p.values.quiet) io.stdout(`wrote ${p.values.output} (${(html.length / 1024).toFixed(0)} kB)\n`);
+  return 0;
+}
