@@ -62,6 +62,30 @@ describe("gemm: C := C − A·Bᵀ", () => {
     );
   });
 
+  it("matches the naive loop on shapes crossing the 128-row and 256-deep cache blocks", () => {
+    for (const [m, n, k, lower] of [[261, 261, 300, true], [203, 141, 263, false], [130, 130, 257, true]] as const) {
+      const lda = m + 3, ldb = n + 1, ldc = m + 2;
+      const a = 5, b = a + lda * k, c = b + ldb * k;
+      const K = jsKernels();
+      const S = K.reserve(c + ldc * n);
+      S.set(randoms(S.length, m * k));
+      const before = S.slice();
+      K.gemm(m, n, k, a, lda, b, ldb, c, ldc, lower);
+      for (let j = 0; j < n; j++) for (let i = 0; i < m; i++) {
+        let want = before[c + i + j * ldc], bound = Math.abs(want);
+        if (!lower || i >= j) {
+          // Naive definition C(i,j) −= Σ_p A(i,p)·B(j,p).
+          for (let p = 0; p < k; p++) {
+            const t = before[a + i + p * lda] * before[b + j + p * ldb];
+            want -= t; bound += Math.abs(t);
+          }
+        }
+        expect(Math.abs(S[c + i + j * ldc] - want)).toBeLessThanOrEqual((k + 2) * EPS * bound);
+      }
+      for (let q = 0; q < c; q++) expect(S[q]).toBe(before[q]);
+    }
+  });
+
   it("agrees with ml-matrix's Matrix.mmul on a 37×29×45 product", () => {
     const m = 37, n = 29, k = 45;
     const K = jsKernels();

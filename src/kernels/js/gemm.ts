@@ -76,6 +76,10 @@ function rowEdge(
   }
 }
 
+/** Rows per cache block of A (MC) and depth per block (KC): an MC×KC block of A stays in L2 while all columns of C pass (Goto & van de Geijn 2008). */
+export const GEMM_ROW_BLOCK = 128;
+export const GEMM_DEPTH_BLOCK = 256;
+
 /**
  * C := C − A·Bᵀ, A m×k at a, B n×k at b, C m×n at c (column-major, offsets
  * into S). With `lower` (m = n) only entries i ≥ j of C are touched.
@@ -85,24 +89,34 @@ export function gemm(
   a: number, lda: number, b: number, ldb: number, c: number, ldc: number, lower: boolean,
 ): void {
   if (m <= 0 || n <= 0 || k <= 0) return;
-  const m4 = m & ~3;
+  for (let p0 = 0; p0 < k; p0 += GEMM_DEPTH_BLOCK) {
+    const kc = Math.min(GEMM_DEPTH_BLOCK, k - p0);
+    for (let i0 = 0; i0 < m; i0 += GEMM_ROW_BLOCK) {
+      const i1 = Math.min(m, i0 + GEMM_ROW_BLOCK);
+      gemmRows(S, i0, i1, lower ? Math.min(n, i1) : n, kc, a + p0 * lda, lda, b + p0 * ldb, ldb, c, ldc, lower);
+    }
+  }
+}
+
+/** Rows [i0, i1) of C against columns [0, n) (i0 a multiple of 4). */
+function gemmRows(
+  S: Float64Array, i0: number, i1: number, n: number, k: number,
+  a: number, lda: number, b: number, ldb: number, c: number, ldc: number, lower: boolean,
+): void {
   for (let j = 0; j < n; j += 4) {
-    const jw = n - j < 4 ? n - j : 4;
-    const iStart = lower ? j : 0;
-    if (jw === 4) {
-      let i = iStart;
-      if (lower && i < m4) {
+    if (n - j >= 4) {
+      let i = lower && j > i0 ? j : i0;
+      if (lower && i === j && i + 4 <= i1) {
         tile44(S, k, a + i, lda, b + j, ldb, c + i + j * ldc, ldc, true);
         i += 4;
       }
-      for (; i < m4; i += 4) tile44(S, k, a + i, lda, b + j, ldb, c + i + j * ldc, ldc, false);
-      rowEdge(S, Math.max(i, iStart), m, j, j + 4, k, a, lda, b, ldb, c, ldc);
+      for (; i + 4 <= i1; i += 4) tile44(S, k, a + i, lda, b + j, ldb, c + i + j * ldc, ldc, false);
+      rowEdge(S, i, i1, j, j + 4, k, a, lda, b, ldb, c, ldc);
     } else {
       for (let jj = j; jj < n; jj++) {
-        let i = lower ? jj : 0;
-        for (; i < m && (i & 3) !== 0; i++) tile11(S, k, a + i, lda, b + jj, ldb, c + i + jj * ldc);
-        for (; i + 4 <= m; i += 4) tile41(S, k, a + i, lda, b + jj, ldb, c + i + jj * ldc);
-        for (; i < m; i++) tile11(S, k, a + i, lda, b + jj, ldb, c + i + jj * ldc);
+        let i = lower && jj > i0 ? jj : i0;
+        for (; i + 4 <= i1; i += 4) tile41(S, k, a + i, lda, b + jj, ldb, c + i + jj * ldc);
+        for (; i < i1; i++) tile11(S, k, a + i, lda, b + jj, ldb, c + i + jj * ldc);
       }
     }
   }
