@@ -17,7 +17,7 @@ import { CapacityError, SeptumError } from "../src/errors.js";
 import { getKernels } from "../src/kernels/index.js";
 import { jsKernels } from "../src/kernels/js/index.js";
 import type { DenseKernels } from "../src/kernels/types.js";
-import { WASM32_MAX_PAGES, wasmKernelBytes, wasmKernels } from "../src/kernels/wasm/index.js";
+import { STORE_BASE_BYTES, WASM32_MAX_PAGES, wasmKernelBytes, wasmKernels } from "../src/kernels/wasm/index.js";
 
 const EPS = 2 ** -52;
 
@@ -96,9 +96,10 @@ describe("wasm gemm: C := C − A·Bᵀ", () => {
       }), { numRuns: 150 });
   });
 
-  it("agrees with the naive loop across the cache blocks (k > 256, m > 128), both variants", () => {
+  it("agrees with the naive loop across the cache blocks (k > 256, m > 128, n > 512), both variants", () => {
     const K = wasmKernels();
-    for (const [m, n, k, lower] of [[301, 67, 530, false], [261, 261, 300, true], [130, 130, 257, true]] as const) {
+    const cases = [[301, 67, 530, false], [261, 261, 300, true], [130, 130, 257, true], [40, 600, 20, false], [530, 530, 13, true]] as const;
+    for (const [m, n, k, lower] of cases) {
       const r = runGemm(K, m, n, k, lower, 3, 1, 2, 5, m * 7 + k);
       let worst = 0;
       for (let j = 0; j < n; j++) {
@@ -320,13 +321,14 @@ describe("store memory", () => {
 
   it("throws CapacityError naming the bytes and the limit, without allocating", () => {
     const K = wasmKernels();
-    const beyond = (2 ** 32 - 65536) / 8 + 1; // one double more than 4 GiB holds after the scratch page
+    const beyond = (2 ** 32 - STORE_BASE_BYTES) / 8 + 1; // one double more than 4 GiB holds above the scratch
     expect(() => K.reserve(beyond)).toThrow(CapacityError);
-    expect(() => K.reserve(beyond)).toThrow(String(65536 + 8 * beyond));
-    expect(() => K.reserve(2 ** 40)).toThrow(/4294967296 bytes/);
-    const small = wasmKernels({ maxPages: 4 });
-    expect(small.reserve(20_000).length).toBeGreaterThanOrEqual(20_000);
-    expect(() => small.reserve(30_000)).toThrow(/305536 bytes.*limit is 4 pages = 262144 bytes/);
+    expect(() => K.reserve(beyond)).toThrow(`${STORE_BASE_BYTES + 8 * beyond} bytes`);
+    expect(() => K.reserve(2 ** 40)).toThrow(/limit is 65536 pages = 4294967296 bytes/);
+    // a memory capped at 24 pages (the store gets 24·65536 − 1376256 bytes = 24576 doubles)
+    const small = wasmKernels({ maxPages: 24 });
+    expect(small.reserve(24_576).length).toBe(24_576);
+    expect(() => small.reserve(24_577)).toThrow(/1572872 bytes.*limit is 24 pages = 1572864 bytes/);
   });
 });
 

@@ -4,14 +4,15 @@
  * one WebAssembly linear memory that IS the store, so the numeric code's
  * factor and frontal stack never get copied to call a kernel.
  *
- * Memory layout: bytes [0, 64 KiB) are the kernels' own scratch; the store
- * (the Float64Array returned by `reserve`/`view`) starts at byte 65536, and
- * store offset x is byte address 65536 + 8x.
+ * Memory layout: bytes [0, 1376256) (21 pages) are the kernels' own scratch
+ * (packed panels, edge tile, L·D·Lᵀ chunk; see kernels.wat); the store (the
+ * Float64Array returned by `reserve`/`view`) starts at byte 1376256, and
+ * store offset x is byte address 1376256 + 8x.
  *
  * Capacity: wasm32 memory has at most 65536 pages of 64 KiB (4 GiB), which
  * Node 20's V8 grants (`new WebAssembly.Memory({ initial: 1, maximum: 65536 })`
  * is accepted, 65537 is a RangeError), so a store of up to
- * (2^32 − 65536) / 8 ≈ 537 million doubles fits. `reserve` computes the pages
+ * (2^32 − 1376256) / 8 ≈ 536.7 million doubles fits. `reserve` computes the pages
  * a request needs before growing and throws CapacityError naming the bytes
  * requested and the page limit when it is beyond; a grow that the engine or
  * the OS refuses is reported the same way. A factor larger than one memory
@@ -26,8 +27,9 @@ import { CapacityError, InputError, SeptumError } from "../../errors.js";
 import type { DenseKernels } from "../types.js";
 import { KERNELS_WASM_BASE64 } from "./binary.generated.js";
 
-/** Bytes reserved for the kernels' scratch below the store (one page). */
-const BASE = 65536;
+/** Bytes reserved for the kernels' scratch below the store (21 pages: see kernels.wat). */
+export const STORE_BASE_BYTES = 1376256;
+const BASE = STORE_BASE_BYTES;
 const PAGE = 65536;
 /** wasm32 limit: 65536 pages = 4 GiB. */
 export const WASM32_MAX_PAGES = 65536;
@@ -75,21 +77,21 @@ export function wasmKernelsAvailable(validate?: (bytes: Uint8Array) => boolean):
 
 /** Options of {@link wasmKernels}. */
 export interface WasmKernelOptions {
-  /** Page limit of the memory (default and upper bound: 65536 = 4 GiB). */
+  /** Page limit of the memory, scratch included (default and upper bound: 65536 = 4 GiB; at least 22). */
   maxPages?: number;
 }
 
 /** Create a WebAssembly SIMD kernel set with its own linear memory as store. */
 export function wasmKernels(options: WasmKernelOptions = {}): DenseKernels {
   const maxPages = options.maxPages ?? WASM32_MAX_PAGES;
-  if (!Number.isInteger(maxPages) || maxPages < 1 || maxPages > WASM32_MAX_PAGES) {
-    throw new InputError(`maxPages must be an integer in 1..${WASM32_MAX_PAGES}, got ${maxPages}`);
+  if (!Number.isInteger(maxPages) || maxPages <= BASE / PAGE || maxPages > WASM32_MAX_PAGES) {
+    throw new InputError(`maxPages must be an integer in ${BASE / PAGE + 1}..${WASM32_MAX_PAGES}, got ${maxPages}`);
   }
   if (!wasmKernelsAvailable()) {
     throw new SeptumError("this runtime's WebAssembly does not accept the SIMD kernels; use the \"js\" kernels");
   }
   moduleCache ??= new WebAssembly.Module(wasmKernelBytes());
-  const memory = new WebAssembly.Memory({ initial: 1 });
+  const memory = new WebAssembly.Memory({ initial: BASE / PAGE });
   const x = new WebAssembly.Instance(moduleCache, { env: { memory } }).exports as unknown as KernelExports;
   let store = new Float64Array(0);
   const view = (): Float64Array => {
