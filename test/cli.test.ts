@@ -1,0 +1,184 @@
+import { afterAll, describe, expect, it } from "vitest";
+import { mkdirSync, mkdtempSync, readFileSync, rmSync, statSync, writeFileSync } from "node:fs";
+import { tmpdir } from "node:os";
+import { join } from "node:path";
+import { main } from "../src/cli/main.js";
+import { VERSION } from "../src/cli/version.js";
+import { readMatrixMarket } from "../src/matrix/market.js";
+import { symmetricMultiply } from "../src/matrix/symmetric.js";
+
+const dir = mkdtempSync(join(tmpdir(), "septum-cli-"));
+afterAll(() => rmSync(dir, { recursive: true, force: true }));
+
+function file(name: string, text: string): string {
+  writeFileSync(join(dir, name), text);
+  return name;
+}
+
+/** Run the command in-process with captured output and a clock advancing 0.3 s per reading. */
+function run(args: string[], tty = false) {
+  let out = "", err = "", t = 0;
+  const code = main(args, { stdout: (s) => (out += s), stderr: (s) => (err += s), stderrIsTTY: tty, cwd: dir, now: () => (t += 0.3) });
+  return { code, out, err };
+}
+
+/** One line on stderr, no stack trace. */
+function expectOneLineError(r: { code: number; err: string }, code: number, ...parts: string[]) {
+  expect(r.code).toBe(code);
+  const lines = r.err.trim().split("\n");
+  expect(lines[0]).toMatch(/^septum: /);
+  for (const p of parts) expect(lines[0]).toContain(p);
+  expect(r.err).not.toMatch(/\n\s+at /);
+}
+
+const SPD3 = `%%MatrixMarket matrix coordinate real symmetric
+3 3 5
+1 1 4
+2 1 -1
+2 2 4
+3 2 -1
+3 3 4
+`;
+
+describe("septum: errors a person can act on", () => {
+  it("missing file", () => expectOneLineError(run(["solve", "nope.mtx"]), 1, "nope.mtx: no such file"));
+
+  it("a directory", () => {
+    mkdirSync(join(dir, "adir"), { recursive: true });
+    expectOneLineError(run(["solve", "adir"]), 1, "adir: is a directory");
+  });
+
+  it("an empty file", () => expectOneLineError(run(["analyze", file("empty.mtx", "")]), 1, "empty.mtx: the file is empty"));
+
+  it("an index out of range names the file and the 1-based line", () => {
+    const bad = file("bad.mtx", "%%MatrixMarket matrix coordinate real general\n3 3 2\n1 1 1\n9 1 2\n");
+    expectOneLineError(run(["solve", bad]), 1, "bad.mtx: line 4:", "row index 9 out of range 1..3");
+  });
+
+  it("a non-symmetric matrix asked for Cholesky names the entry in file numbering", () => {
+    const ns = file("ns.mtx", "%%MatrixMarket matrix coordinate real general\n3 3 5\n1 1 4\n2 2 4\n3 3 4\n3 1 1\n1 3 2\n");
+    expectOneLineError(run(["solve", ns]), 1, "ns.mtx: the matrix is not symmetric", "(3, 1)", "(1, 3)");
+  });
+
+  it("a matrix that is not positive definite names the column in file numbering", () => {
+    // diag(1, 2, -3, 4): the only non-positive pivot is the diagonal entry of column 3, whatever the ordering
+    const d = file("diag.mtx", "%%MatrixMarket matrix coordinate real symmetric\n4 4 4\n1 1 1\n2 2 2\n3 3 -3\n4 4 4\n");
+    for (const ordering of ["nested-dissection", "minimum-degree", "natural"]) {
+      expectOneLineError(run(["solve", d, "--ordering", ordering]), 1, "diag.mtx: the matrix is not positive definite", "at column 3", "--method ldlt");
+    }
+    // [[1, 2], [2, 1]] in natural order: second pivot 1 − 2·2/1 = −3 at column 2 (hand computation)
+    const t = file("indef.mtx", "%%MatrixMarket matrix coordinate real symmetric\n2 2 3\n1 1 1\n2 1 2\n2 2 1\n");
+    expectOneLineError(run(["solve", t, "--ordering", "natural"]), 1, "pivot -3.00 at column 2");
+  });
+
+  it("bad options: exit code 2 and a hint", () => {
+    const a = file("a.mtx", SPD3);
+    expectOneLineError(run(["solve", a, "--frobnicate"]), 2, "unknown option", "--frobnicate");
+    expectOneLineError(run(["solve", a, "--ordering", "sideways"]), 2, "unknown ordering 'sideways'");
+    expectOneLineError(run(["solve", a, "--method", "lu"]), 2, "unknown method 'lu'");
+    expectOneLineError(run(["solve"]), 2, "missing the matrix file");
+    expectOneLineError(run(["solve", a, "b.mtx"]), 2, "unexpected argument 'b.mtx'");
+    expectOneLineError(run(["transmogrify"]), 2, "unknown command 'transmogrify'");
+    expectOneLineError(run(["generate", "grid2d", "-3", "-o", "g.mtx"]), 2, "--grid2d");
+    expectOneLineError(run(["report", a]), 2, "-o report.html is required");
+    expect(run(["solve", a, "--frobnicate"]).err).toContain("Try 'septum --help'");
+  });
+
+  it("--debug shows the stack", () => {
+    const r = run(["solve", "nope.mtx", "--debug"]);
+    expect(r.code).toBe(1);
+    expect(r.err).toMatch(/\n\s+at /);
+  });
+});
+
+describe("septum: help and version", () => {
+  it("--version matches package.json", () => {
+    const pkg = JSON.parse(readFileSync(new URL("../package.json", import.meta.url), "utf8"));
+    expect(VERSION).toBe(pkg.version);
+    expect(run(["--version"]).out.trim()).toBe(pkg.version);
+  });
+  it("main and per-command help", () => {
+    expect(run(["--help"]).out).toContain("Commands:");
+    for (const c of ["solve", "analyze", "report", "generate", "demo"]) {
+      const r = run([c, "--help"]);
+      expect(r.code).toBe(0);
+      expect(r.out).toContain(`Usage: septum ${c}`);
+    }
+  });
+});
+
+describe("septum solve", () => {
+  it("--json: one object with the documented fields; natural ordering of a k×k grid fills the envelope", () => {
+    const k = 12, n = k * k;
+    expect(run(["generate", "grid2d", String(k), "-o", "g12.mtx", "--quiet"]).code).toBe(0);
+    const r = run(["solve", "g12.mtx", "--json", "--ordering", "natural"]);
+    expect(r.code).toBe(0);
+    const j = JSON.parse(r.out);
+    for (const key of ["n", "nnzA", "nnzL", "flops", "supernodes", "residual", "seconds", "maxError"]) expect(j).toHaveProperty(key);
+    expect(j.n).toBe(n);
+    expect(j.nnzA).toBe(n + 2 * k * (k - 1)); // lower triangle of the 5-point stencil: n diagonal + 2k(k−1) edges (closed form)
+    expect(j.nnzL).toBe((n - k) * (k + 1) + 2 * k - 1); // envelope fill of the natural ordering (design.md, common practice)
+    const eps = Number.EPSILON;
+    expect(j.residual).toBeLessThan(100 * n * eps); // b = A·1, ‖A‖ ≤ 8, cond ≈ 60 for k = 12
+    expect(j.maxError).toBeLessThan(1000 * n * eps);
+    expect(typeof j.seconds.factor).toBe("number");
+  });
+
+  it("--rhs and -o: the written solution satisfies A x = b", () => {
+    const a = file("a3.mtx", SPD3);
+    file("b3.mtx", "%%MatrixMarket matrix array real general\n3 2\n1\n2\n3\n0\n-1\n5\n");
+    const r = run(["solve", a, "--rhs", "b3.mtx", "-o", "out/x3.mtx", "--method", "ldlt"]);
+    expect(r.code).toBe(0);
+    expect(r.out).toContain("residual");
+    const x = readMatrixMarket(readFileSync(join(dir, "out/x3.mtx")));
+    if (x.kind !== "dense") throw new Error("expected an array file");
+    const A = readMatrixMarket(SPD3);
+    if (A.kind !== "sparse") throw new Error("expected a coordinate file");
+    const b = [[1, 2, 3], [0, -1, 5]];
+    for (let c = 0; c < 2; c++) {
+      const Ax = symmetricMultiply(A.matrix, x.values.subarray(3 * c, 3 * c + 3));
+      for (let i = 0; i < 3; i++) expect(Math.abs(Ax[i] - b[c][i])).toBeLessThan(1e-14 * 16);
+    }
+  });
+
+  it("a right-hand side of the wrong length names both sizes", () => {
+    file("b4.mtx", "%%MatrixMarket matrix array real general\n4 1\n1\n2\n3\n4\n");
+    expectOneLineError(run(["solve", file("a3b.mtx", SPD3), "--rhs", "b4.mtx"]), 1, "b4.mtx: has 4 rows, but the matrix has 3");
+  });
+
+  it("a progress line appears on a TTY and not with --quiet", () => {
+    expect(run(["generate", "grid2d", "30", "-o", "g30.mtx", "--quiet"]).code).toBe(0);
+    const tty = run(["solve", "g30.mtx"], true);
+    expect(tty.err).toContain("\r");
+    expect(tty.err).toMatch(/factor|ordering|symbolic/);
+    expect(run(["solve", "g30.mtx", "--quiet"], true).err).toBe("");
+    expect(run(["solve", "g30.mtx"], false).err).toBe("");
+  });
+});
+
+describe("septum analyze and report", () => {
+  it("--compare --json lists every ordering with the same n and nnzA", () => {
+    expect(run(["generate", "mesh2d", "60", "-o", "m60.mtx", "--quiet"]).code).toBe(0);
+    const r = run(["analyze", "m60.mtx", "--compare", "--json"]);
+    expect(r.code).toBe(0);
+    const list = JSON.parse(r.out);
+    expect(list.map((x: { ordering: string }) => x.ordering)).toEqual(["nested-dissection", "minimum-degree", "reverse-cuthill-mckee", "natural"]);
+    for (const x of list) {
+      expect(x.n).toBe(list[0].n);
+      expect(x.nnzL).toBeGreaterThanOrEqual(x.nnzA); // L holds at least the lower triangle of A (no cancellation in the symbolic pattern)
+    }
+    const table = run(["analyze", "m60.mtx", "--compare"]).out;
+    expect(table).toContain("reverse-cuthill-mckee");
+  });
+
+  it("report writes one self-contained page under a few MB", () => {
+    expect(run(["generate", "grid3d", "12", "-o", "c12.mtx", "--quiet"]).code).toBe(0);
+    const r = run(["report", "c12.mtx", "-o", "rep/c12.html"]);
+    expect(r.code).toBe(0);
+    const html = readFileSync(join(dir, "rep/c12.html"), "utf8");
+    expect(html).toContain("data:image/png;base64,");
+    expect(html).toContain("Separator tree");
+    expect(html).not.toMatch(/(src|href)="https?:/);
+    expect(statSync(join(dir, "rep/c12.html")).size).toBeLessThan(3 * 2 ** 20);
+  });
+});
