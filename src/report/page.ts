@@ -27,7 +27,8 @@ h1{font-size:26px;margin:0 0 2px}h2{font-size:18px;margin:34px 0 10px}
 .panel svg{display:block;max-width:100%;height:auto}
 figcaption{font-size:13px;color:var(--mute);padding:4px 6px 0}figcaption b{color:var(--ink)}
 .axis{font-size:11px;fill:#7a8494}.tlabel{font-size:11px;fill:#3a4456}
-.zero{fill:#2e9e5b;fill-opacity:.07;stroke:#2e9e5b}
+.zero{fill:#2e9e5b;fill-opacity:.05;stroke:#2e9e5b;stroke-opacity:.85}
+.box>svg{display:block;max-width:100%;height:auto}
 .tedges line{stroke:#b8c2cf;stroke-width:1.2}
 .box{background:#fff;border:1px solid var(--line);border-radius:10px;padding:14px 16px;overflow-x:auto}
 table.cmp{border-collapse:collapse;width:100%;font-variant-numeric:tabular-nums;font-size:14px}

@@ -55,13 +55,13 @@ export interface PanelOptions {
 
 /** One matrix picture: the density image in a frame with index labels. */
 export function matrixPanel(o: PanelOptions): string {
-  const px = o.px ?? 360, m = 26;
+  const px = o.px ?? 360, m = 22, ml = 12 + 6.5 * fmt(o.n).length;
   const s = px / o.n;
   return `<figure class="panel">
-<svg viewBox="0 0 ${px + m + 8} ${px + m + 8}" width="${px + m + 8}" height="${px + m + 8}" role="img" aria-label="${esc(o.title)}">
-<text x="${m}" y="${m - 8}" class="axis">1</text><text x="${px + m}" y="${m - 8}" class="axis" text-anchor="end">${fmt(o.n)}</text>
-<text x="${m - 6}" y="${m + 10}" class="axis" text-anchor="end">1</text><text x="${m - 6}" y="${px + m}" class="axis" text-anchor="end">${fmt(o.n)}</text>
-<g transform="translate(${m},${m})">
+<svg viewBox="0 0 ${px + ml + 8} ${px + m + 8}" width="${px + ml + 8}" height="${px + m + 8}" role="img" aria-label="${esc(o.title)}">
+<text x="${ml}" y="${m - 7}" class="axis">1</text><text x="${px + ml}" y="${m - 7}" class="axis" text-anchor="end">${fmt(o.n)}</text>
+<text x="${ml - 5}" y="${m + 10}" class="axis" text-anchor="end">1</text><text x="${ml - 5}" y="${px + m}" class="axis" text-anchor="end">${fmt(o.n)}</text>
+<g transform="translate(${ml},${m})">
 <rect width="${px}" height="${px}" fill="#fff"/>
 <image href="${o.imageUrl}" width="${px}" height="${px}" preserveAspectRatio="none" style="image-rendering:pixelated"/>
 ${o.overlay ? `<g transform="scale(${s})">${o.overlay}</g>` : ""}
@@ -73,7 +73,7 @@ ${o.overlay ? `<g transform="scale(${s})">${o.overlay}</g>` : ""}
 /**
  * Outlines for P·A·Pᵀ (both triangles) or L (lower only): translucent bands on
  * each separator's rows and columns, dashed boxes on the zero blocks between
- * sibling subdomains. Only nodes at depth ≤ maxDepth spanning at least six
+ * sibling subdomains (top four levels). Only nodes at depth ≤ maxDepth spanning at least six
  * pixels of a px-wide panel are drawn.
  */
 export function separatorOverlay(t: SeparatorTree, n: number, px: number, lowerOnly: boolean, maxDepth: number): string {
@@ -86,7 +86,7 @@ export function separatorOverlay(t: SeparatorTree, n: number, px: number, lowerO
     if (depth[i] > maxDepth || e - f < minSpan) continue;
     const col = depthColour(depth[i]);
     const kids = ch[i];
-    for (let a = 0; a < kids.length; a++) for (let b = a + 1; b < kids.length; b++) {
+    for (let a = 0; a < kids.length && depth[i] <= 3; a++) for (let b = a + 1; b < kids.length; b++) {
       const A = kids[a], B = kids[b];
       const box = (x: number, y: number, w: number, h: number) =>
         `<rect x="${x}" y="${y}" width="${w}" height="${h}" class="zero" stroke-width="${sw}" stroke-dasharray="${3 * sw} ${2 * sw}"/>`;
@@ -95,8 +95,10 @@ export function separatorOverlay(t: SeparatorTree, n: number, px: number, lowerO
       if (!lowerOnly) parts.push(box(t.first[B], t.first[A], t.end[B] - t.first[B], t.end[A] - t.first[A]));
     }
     if (e > sf) {
-      parts.push(`<rect x="${f}" y="${sf}" width="${e - f}" height="${e - sf}" fill="${col}" fill-opacity="0.28" stroke="${col}" stroke-width="${sw}"/>`);
-      if (!lowerOnly) parts.push(`<rect x="${sf}" y="${f}" width="${e - sf}" height="${sf - f}" fill="${col}" fill-opacity="0.28" stroke="${col}" stroke-width="${sw}"/>`);
+      // a band at least 1.5 pixels thick, so small separators stay visible
+      const t = Math.max(e - sf, 1.5 * (n / px)), s0 = e - t;
+      parts.push(`<rect x="${f}" y="${s0}" width="${e - f}" height="${t}" fill="${col}" fill-opacity="0.3" stroke="${col}" stroke-width="${sw}"/>`);
+      if (!lowerOnly) parts.push(`<rect x="${s0}" y="${f}" width="${t}" height="${s0 - f}" fill="${col}" fill-opacity="0.3" stroke="${col}" stroke-width="${sw}"/>`);
     }
   }
   return parts.join("\n");
