@@ -11,7 +11,7 @@ import { analyze } from "../solver/analyze.js";
 import { batteryHeat, batteryPlate, BATTERY_PLATE } from "../fem/battery.js";
 import { convergenceStudy } from "../fem/manufactured.js";
 import { meshPlate } from "../fem/mesh.js";
-import { assembleP1, dirichletOutflow, expandSolution, type P1Problem, type Triplets } from "../fem/p1.js";
+import { assembleP1, heatBalance, expandSolution, type P1Problem, type Triplets } from "../fem/p1.js";
 import { fieldSvg } from "../report/field.js";
 import { renderReport } from "../report/page.js";
 import { ORDERINGS, numberOption, type Parsed } from "./options.js";
@@ -76,12 +76,12 @@ Plate ${P.width * 1000} × ${P.height * 1000} mm, ${P.thickness * 1000} mm alumi
   line.done();
   say(`Every ordering solves the same system; they differ in fill and work:\n${compareTable(list, factorSeconds)}\n`);
 
-  const outflow = dirichletOutflow(mesh, problem, system, u);
+  const { load, outflow } = heatBalance(mesh, problem, system, u);
   const total = P.cells.reduce((s, c) => s + c.watts, 0);
   let hot = 0;
   for (let v = 0; v < u.length; v++) if (u[v] > u[hot]) hot = v;
   say(`Temperature: ${u.reduce((a, b) => Math.min(a, b))} … ${u[hot].toFixed(2)} °C, hottest at (${(mesh.coords[2 * hot] * 1000).toFixed(0)}, ${(mesh.coords[2 * hot + 1] * 1000).toFixed(0)}) mm.
-Heat balance: ${total.toFixed(2)} W deposited, ${outflow.toFixed(2)} W leave through the channels (relative gap ${sci(Math.abs(outflow - total) / total)}).
+Heat balance: ${load.toFixed(3)} W deposited (nominal ${total} W; the patch edges cut through triangles), ${outflow.toFixed(3)} W leave through the channels (relative gap ${sci(Math.abs(outflow - load) / load)}).
 
 `);
   const study = convergenceStudy({ ...batteryPlate(0.006) }, P.conductivity * P.thickness, 3, directSolve);

@@ -112,22 +112,24 @@ export function expandSolution(system: P1System, x: Float64Array): Float64Array 
 }
 
 /**
- * Net flow out of the domain through the Dirichlet nodes, Σ_d (K u − F)_d over
- * the full (unreduced) system: by conservation it balances the total source
- * ∫ f (a check of the assembled solution, common practice).
+ * Heat balance of a solution: `load` = Σ F over all nodes (the source as
+ * the assembly integrated it) and `outflow` = −Σ_d (K u − F)_d over the
+ * Dirichlet nodes of the full (unreduced) system. K annihilates constants,
+ * so the two agree up to the solve's accuracy (conservation, common practice).
  */
-export function dirichletOutflow(mesh: TriangleMesh, problem: P1Problem, system: P1System, u: Float64Array): number {
+export function heatBalance(mesh: TriangleMesh, problem: P1Problem, system: P1System, u: Float64Array): { load: number; outflow: number } {
   const ke = new Float64Array(9), fe = new Float64Array(3), v = new Int32Array(3);
-  let out = 0;
+  let outflow = 0, load = 0;
   for (let t = 0; t < mesh.triangles.length; t += 3) {
     for (let a = 0; a < 3; a++) v[a] = mesh.triangles[t + a];
     elementMatrices(mesh.coords, v, problem, ke, fe);
     for (let a = 0; a < 3; a++) {
+      load += fe[a];
       if (system.unknownOf[v[a]] >= 0) continue;
       let r = -fe[a];
       for (let b = 0; b < 3; b++) r += ke[3 * a + b] * u[v[b]];
-      out -= r;
+      outflow -= r;
     }
   }
-  return out;
+  return { load, outflow };
 }
