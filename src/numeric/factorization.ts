@@ -13,7 +13,7 @@ import { lowerTriangle, maxAbs, requireSquare, symmetricNormInf } from "../matri
 import { multifrontal, type PivotFailure } from "./multifrontal.js";
 import { buildScatterMap, samePattern, scatterValues, type ScatterMap } from "./scatter.js";
 import { refineSolve } from "./refine.js";
-import { backwardSweep, diagonalSweep, forwardSweep } from "./triangular.js";
+import { backwardSweep, diagonalSweep, forwardSweep, largestBelow } from "./triangular.js";
 import {
   DEFAULT_PIVOT_TOLERANCE, type FactorMethod, type FactorOptions, type FactorStats, type Inertia,
   type NumericInput, type SolveInfo, type SolveOptions,
@@ -38,6 +38,7 @@ export class Factorization {
   private readonly schedule: StackSchedule;
   private readonly workspace: WorkspacePrediction;
   private readonly cumulativeFlops: Float64Array;
+  private readonly solveTmp: Float64Array;
   private map: ScatterMap | null = null;
   private matrix: SparseMatrix | null = null;
   private normInf = 0;
@@ -58,6 +59,7 @@ export class Factorization {
     this.schedule = stackSchedule(input.structure);
     this.workspace = predictWorkspace(input.structure, method);
     this.cumulativeFlops = flopsAlongOrder(input, this.schedule.order);
+    this.solveTmp = new Float64Array(largestBelow(input.structure));
   }
 
   /** Figures of the last successful factorization. */
@@ -166,9 +168,9 @@ export class Factorization {
     const y = new Float64Array(b.length);
     for (let r = 0; r < k; r++) for (let i = 0; i < n; i++) y[r * n + i] = b[r * n + perm[i]];
     const S = this.kernels.view(), st = this.input.structure, unit = this.method === "ldlt";
-    forwardSweep(S, st, y, k, unit);
+    forwardSweep(S, st, y, k, unit, this.solveTmp);
     if (unit) diagonalSweep(S, st, y, k);
-    backwardSweep(S, st, y, k, unit);
+    backwardSweep(S, st, y, k, unit, this.solveTmp);
     for (let r = 0; r < k; r++) for (let i = 0; i < n; i++) b[r * n + perm[i]] = y[r * n + i];
     return b;
   }

@@ -1,0 +1,121 @@
+// Numeric factorization benchmark (issue 3). Run `npm run build` first; this
+// imports the BUILT package. Medians of RUNS runs (default 3) per figure.
+//
+//   node bench/factor.mjs                 # all cases
+//   RUNS=5 KERNELS=js node bench/factor.mjs kernel 2d 3d dense
+//
+// Reports, per grid Laplacian (2-D 500², 3-D 40³, nested dissection):
+// factor seconds, GF/s (flops = Σ c_j², design.md), solve seconds, bytes of L
+// and of the whole store (factor + contribution stack), and the ratio of the
+// factor's GF/s to the dense kernel's own GF/s on a 256×256 SYRK measured in
+// the same run. Then the speed-up over ml-matrix's dense Cholesky at n = 2500.
+import { CholeskyDecomposition, Matrix } from "ml-matrix";
+import { SparseMatrix, analyze, jsKernels, getKernels } from "../dist/index.js";
+
+const RUNS = Number(process.env.RUNS ?? 3);
+const KERNELS = process.env.KERNELS ?? "js";
+const cases = process.argv.slice(2).length ? process.argv.slice(2) : ["kernel", "2d", "3d", "dense"];
+
+const median = (v) => { const s = [...v].sort((a, b) => a - b); const h = s.length >> 1; return s.length % 2 ? s[h] : (s[h - 1] + s[h]) / 2; };
+const now = () => performance.now() / 1000;
+const fmt = (x, d = 3) => Number(x).toFixed(d);
+const mib = (b) => `${fmt(b / 2 ** 20, 1)} MiB`;
+
+/** Lower triangle of the 5-point (2-D) or 7-point (3-D) Dirichlet Laplacian on a k^dim grid. */
+function gridLaplacian(k, dim) {
+  const n = k ** dim, rows = [], cols = [], vals = [];
+  const strides = dim === 2 ? [1, k] : [1, k, k * k];
+  for (let v = 0; v < n; v++) {
+    rows.push(v); cols.push(v); vals.push(2 * dim);
+    for (let d = 0; d < dim; d++) {
+      const coord = Math.floor(v / strides[d]) % k;
+      if (coord > 0) { rows.push(v); cols.push(v - strides[d]); vals.push(-1); }
+    }
+  }
+  return SparseMatrix.fromTriplets(n, n, Int32Array.from(rows), Int32Array.from(cols), Float64Array.from(vals));
+}
+
+/** GF/s of the kernel set's lower GEMM (SYRK) C −= A·Aᵀ, 256×256×256, median of 9 after warm-up. */
+function kernelRate() {
+  const K = KERNELS === "js" ? jsKernels() : getKernels(KERNELS);
+  const n = 256, S = K.reserve(2 * n * n);
+  for (let i = 0; i < S.length; i++) S[i] = Math.sin(i);
+  const t = [];
+  for (let r = 0; r < 12; r++) {
+    const t0 = now();
+    K.gemm(n, n, n, 0, n, 0, n, n * n, n, true);
+    if (r >= 3) t.push(now() - t0);
+  }
+  return (n * (n + 1) * n) / median(t) / 1e9;
+}
+
+function benchSparse(name, A, ordering = "nested-dissection") {
+  const t0 = now();
+  const analysis = analyze(A, { ordering });
+  const analyseSeconds = now() - t0;
+  const F = analysis.factor(A, { kernels: KERNELS });
+  const fs = [], ss = [];
+  const b = new Float64Array(A.ncols).map((_, i) => Math.sin(i + 1));
+  for (let r = 0; r < RUNS; r++) {
+    F.refactor(A);
+    fs.push(F.stats.seconds);
+    const s0 = now();
+    F.solve(b);
+    ss.push(now() - s0);
+  }
+  const info = F.solveWithInfo(b);
+  const sec = median(fs), flops = analysis.stats.flops;
+  return {
+    name, n: A.ncols, ordering, analyseSeconds, nnzL: analysis.stats.nnzL, flops, supernodes: F.stats.supernodes,
+    factorSeconds: sec, gflops: flops / sec / 1e9, solveSeconds: median(ss),
+    factorBytes: F.stats.factorBytes, peakBytes: F.stats.peakBytes, backwardError: info.backwardError,
+  };
+}
+
+function benchDense() {
+  const A = gridLaplacian(50, 2), n = A.ncols;
+  const sparse = benchSparse("2-D 50² (n = 2500)", A);
+  const M = new Matrix(n, n);
+  for (let j = 0; j < n; j++) for (let p = A.colPtr[j]; p < A.colPtr[j + 1]; p++) {
+    M.set(A.rowIdx[p], j, A.values[p]); M.set(j, A.rowIdx[p], A.values[p]);
+  }
+  const t = [];
+  for (let r = 0; r < Math.min(RUNS, 3); r++) {
+    const t0 = now();
+    new CholeskyDecomposition(M);
+    t.push(now() - t0);
+  }
+  return { sparse, denseSeconds: median(t), speedup: median(t) / sparse.factorSeconds };
+}
+
+function report(r, rate) {
+  console.log(`${r.name}: n=${r.n} ordering=${r.ordering} supernodes=${r.supernodes} nnzL=${r.nnzL} flops=${r.flops.toExponential(3)}`);
+  console.log(`  analyse ${fmt(r.analyseSeconds)} s | factor ${fmt(r.factorSeconds)} s, ${fmt(r.gflops, 2)} GF/s` +
+    (rate ? ` = ${fmt(r.gflops / rate, 2)} × kernel` : "") +
+    ` | solve ${fmt(r.solveSeconds)} s | L ${mib(r.factorBytes)} | store ${mib(r.peakBytes)} | backward error ${r.backwardError.toExponential(1)}`);
+}
+
+const out = { runs: RUNS, kernels: KERNELS };
+const rates = [];
+if (cases.includes("kernel") || cases.includes("2d") || cases.includes("3d")) {
+  rates.push(kernelRate());
+  console.log(`kernel (${KERNELS}) SYRK 256×256×256: ${fmt(rates[0], 2)} GF/s`);
+}
+for (const c of ["2d", "3d"]) {
+  if (!cases.includes(c)) continue;
+  const A = c === "2d" ? gridLaplacian(500, 2) : gridLaplacian(40, 3);
+  const r = benchSparse(c === "2d" ? "2-D 500²" : "3-D 40³", A);
+  rates.push(kernelRate());
+  r.kernelGflops = median(rates);
+  r.ratio = r.gflops / r.kernelGflops;
+  report(r, r.kernelGflops);
+  out[c] = r;
+}
+if (cases.includes("dense")) {
+  const d = benchDense();
+  report(d.sparse);
+  console.log(`  ml-matrix dense Cholesky n=2500: ${fmt(d.denseSeconds)} s → septum speed-up ${fmt(d.speedup, 1)}×`);
+  out.dense = d;
+}
+if (rates.length) console.log(`kernel rate, median over the run: ${fmt(median(rates), 2)} GF/s (${rates.map((x) => fmt(x, 2)).join(", ")})`);
+console.log(JSON.stringify(out));
