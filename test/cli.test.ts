@@ -79,7 +79,9 @@ describe("septum: errors a person can act on", () => {
     expectOneLineError(run(["solve"]), 2, "missing the matrix file");
     expectOneLineError(run(["solve", a, "b.mtx"]), 2, "unexpected argument 'b.mtx'");
     expectOneLineError(run(["transmogrify"]), 2, "unknown command 'transmogrify'");
-    expectOneLineError(run(["generate", "grid2d", "-3", "-o", "g.mtx"]), 2, "--grid2d");
+    expectOneLineError(run(["generate", "grid2d", "zero", "-o", "g.mtx"]), 2, "generate grid2d: the size must be a positive integer, got 'zero'");
+    expectOneLineError(run(["generate", "grid2d", "5", "--stencil", "7", "-o", "g.mtx"]), 2, "--stencil: expected 5 or 9");
+    expectOneLineError(run(["generate", "mesh2d", "10", "-o", "g.mtx"]), 1, "mesh2d size must be an integer in 60..6000");
     expectOneLineError(run(["report", a]), 2, "-o report.html is required");
     expect(run(["solve", a, "--frobnicate"]).err).toContain("Try 'septum --help'");
   });

@@ -13,7 +13,8 @@ const KINDS = ["grid2d", "grid3d", "elasticity3d", "mesh2d", "laplacian"];
 
 /** Build the model problem named on the command line. */
 export function buildModel(kind: string, sizeText: string, p: Parsed): ModelProblem {
-  const size = numberOption(kind, sizeText, 0, 1, 1e8, true);
+  const size = Number(sizeText);
+  if (!/^\d+$/.test(sizeText.trim()) || !(size >= 1)) throw new UsageError(`generate ${kind}: the size must be a positive integer, got '${sizeText}'`);
   switch (kind) {
     case "grid2d": {
       const stencil = numberOption("stencil", p.values.stencil, 5, 5, 9, true);
