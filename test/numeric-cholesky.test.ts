@@ -130,7 +130,7 @@ describe("closed forms", () => {
 });
 
 describe("multiple right-hand sides, storage forms, refactor", () => {
-  it("n×k column-major right-hand sides give the same columns as k single solves", () => {
+  it("n×k column-major right-hand sides give the same columns (to rounding) as k single solves", () => {
     const A = grid2d(15).matrix, n = A.ncols, k = 5;
     const F = factorize(analyse(A, randomPermutation(n, 3)), A);
     const B = randomVector(n * k, 9);
@@ -138,14 +138,14 @@ describe("multiple right-hand sides, storage forms, refactor", () => {
     const M = dense(A);
     for (let c = 0; c < k; c++) {
       const xc = F.solve(B.subarray(c * n, (c + 1) * n));
-      for (let i = 0; i < n; i++) expect(X[c * n + i]).toBe(xc[i]);
+      for (let i = 0; i < n; i++) expect(Math.abs(X[c * n + i] - xc[i])).toBeLessThanOrEqual(1e-13 * (1 + Math.abs(xc[i])));
       expect(denseBackwardError(M, X.subarray(c * n, (c + 1) * n), B.subarray(c * n, (c + 1) * n))).toBeLessThan(10 * n * EPS);
     }
     const inPlace = B.slice();
     expect(F.solveInPlace(inPlace)).toBe(inPlace);
     expect(Array.from(inPlace)).toEqual(Array.from(X));
     const plain = F.solve(Array.from(B.subarray(0, n)));
-    expect(Array.from(plain)).toEqual(Array.from(X.subarray(0, n)));
+    for (let i = 0; i < n; i++) expect(Math.abs(plain[i] - X[i])).toBeLessThanOrEqual(1e-13 * (1 + Math.abs(X[i])));
   });
 
   it("lower, upper and both-triangle storage give bit-identical factors", () => {

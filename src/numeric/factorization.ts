@@ -165,13 +165,15 @@ export class Factorization {
   solveInPlace(b: Float64Array): Float64Array {
     this.usable();
     const k = this.checkRhs(b), n = this.n, perm = this.input.permutation;
+    // Permute into the interleaved layout y[i·k + r] the sweeps use.
     const y = new Float64Array(b.length);
-    for (let r = 0; r < k; r++) for (let i = 0; i < n; i++) y[r * n + i] = b[r * n + perm[i]];
+    for (let r = 0; r < k; r++) for (let i = 0; i < n; i++) y[i * k + r] = b[r * n + perm[i]];
     const S = this.kernels.view(), st = this.input.structure, unit = this.method === "ldlt";
-    forwardSweep(S, st, y, k, unit, this.solveTmp);
+    const tmp = k === 1 ? this.solveTmp : new Float64Array(this.solveTmp.length * k);
+    forwardSweep(S, st, y, k, unit, tmp);
     if (unit) diagonalSweep(S, st, y, k);
-    backwardSweep(S, st, y, k, unit, this.solveTmp);
-    for (let r = 0; r < k; r++) for (let i = 0; i < n; i++) b[r * n + perm[i]] = y[r * n + i];
+    backwardSweep(S, st, y, k, unit, tmp);
+    for (let r = 0; r < k; r++) for (let i = 0; i < n; i++) b[r * n + perm[i]] = y[i * k + r];
     return b;
   }
 
