@@ -193,11 +193,32 @@ describe("wasm potrf", () => {
       }), { numRuns: 60 });
   });
 
+  it("factors across the two block levels (n = 300 > 256): backward error against the naive product", () => {
+    const K = wasmKernels();
+    const n = 300, lda = 303, a = 4;
+    const S = K.reserve(a + lda * n);
+    fillSpd(S, n, a, lda, 99);
+    const A0 = S.slice(a, a + lda * n);
+    expect(K.potrf(n, a, lda)).toBe(-1);
+    const L = K.view();
+    let worst = 0, amax = 0;
+    for (let j = 0; j < n; j++) {
+      for (let i = j; i < n; i++) {
+        let s = 0;
+        for (let p = 0; p <= j; p++) s += L[a + i + p * lda] * L[a + j + p * lda];
+        worst = Math.max(worst, Math.abs(s - A0[i + j * lda]));
+        amax = Math.max(amax, Math.abs(A0[i + j * lda]));
+      }
+    }
+    // backward stability of Cholesky (Higham §10.1, from memory): ‖A − L·Lᵀ‖ ≲ c·n·eps·‖A‖
+    expect(worst).toBeLessThanOrEqual(4 * n * EPS * amax);
+  });
+
   it("reports the first non-positive pivot at its local column, pivot left unrooted", () => {
     // A = M·diag(d)·Mᵀ with unit lower M: the Cholesky pivots are exactly d (common practice),
     // so with d[t] < 0 and d[0..t-1] > 0 the failure column is t and the pivot is d[t].
     const K = wasmKernels();
-    for (const [n, t] of [[1, 0], [5, 3], [40, 33], [70, 64], [70, 31]] as const) {
+    for (const [n, t] of [[1, 0], [5, 3], [40, 33], [70, 64], [70, 31], [300, 290], [300, 100]] as const) {
       const m = randoms(n * n, n + t);
       const d = Array.from({ length: n }, (_, i) => (i === t ? -0.5 : 1 + (i % 3)));
       const lda = n + 2, a = 1;
@@ -250,7 +271,7 @@ describe("wasm ldlt", () => {
 
   it("reports the first tiny pivot at its local column, across the 128-row chunks of the update", () => {
     const K = wasmKernels();
-    for (const [n, t] of [[3, 0], [9, 8], [150, 140], [200, 37]] as const) {
+    for (const [n, t] of [[3, 0], [9, 8], [150, 140], [200, 37], [300, 280]] as const) {
       const lda = n + 1, a = 0;
       const S = K.reserve(lda * n);
       // A = M·diag(d)·Mᵀ, M unit lower with entries 0.1; d[t] = 1e-20 below tiny = 1e-14
@@ -296,6 +317,31 @@ describe("wasm and js kernel sets agree", () => {
         .toBeLessThanOrEqual(1e-12);
     }), { numRuns: 60 });
   });
+  it("on potrf and ldlt of a 300×300 quasi-definite / SPD block (two block levels)", () => {
+    const W = wasmKernels(), J = jsKernels();
+    const n = 300, lda = 301, len = lda * n;
+    const init = randoms(len, 4242);
+    for (let j = 0; j < n; j++) {
+      init[j + j * lda] = (j % 3 === 2 ? -1 : 1) * (n + 1); // diagonally dominant, signs mixed for ldlt
+      for (let i = j + 1; i < n; i++) init[i + j * lda] *= 0.5;
+    }
+    const run = (K: DenseKernels, f: (K: DenseKernels) => number) => { K.reserve(len).set(init); return [f(K), K.view().slice(0, len)] as const; };
+    const [rw, lw] = run(W, (K) => K.ldlt(n, 0, lda, 1e-14));
+    const [rj, lj] = run(J, (K) => K.ldlt(n, 0, lda, 1e-14));
+    expect(rw).toBe(-1);
+    expect(rj).toBe(-1);
+    let diff = 0;
+    for (let t = 0; t < len; t++) diff = Math.max(diff, Math.abs(lw[t] - lj[t]));
+    expect(diff).toBeLessThanOrEqual(1e-12 * (n + 1));
+    for (let j = 0; j < n; j++) init[j + j * lda] = n + 1;
+    const [pw, cw] = run(W, (K) => K.potrf(n, 0, lda));
+    const [pj, cj] = run(J, (K) => K.potrf(n, 0, lda));
+    expect(pw).toBe(-1);
+    expect(pj).toBe(-1);
+    diff = 0;
+    for (let t = 0; t < len; t++) diff = Math.max(diff, Math.abs(cw[t] - cj[t]));
+    expect(diff).toBeLessThanOrEqual(1e-12 * Math.sqrt(n + 1));
+  });
 });
 
 describe("store memory", () => {
@@ -325,10 +371,10 @@ describe("store memory", () => {
     expect(() => K.reserve(beyond)).toThrow(CapacityError);
     expect(() => K.reserve(beyond)).toThrow(`${STORE_BASE_BYTES + 8 * beyond} bytes`);
     expect(() => K.reserve(2 ** 40)).toThrow(/limit is 65536 pages = 4294967296 bytes/);
-    // a memory capped at 24 pages (the store gets 24·65536 − 1376256 bytes = 24576 doubles)
-    const small = wasmKernels({ maxPages: 24 });
+    // a memory capped at 28 pages (the store gets 28·65536 − 1638400 bytes = 24576 doubles)
+    const small = wasmKernels({ maxPages: 28 });
     expect(small.reserve(24_576).length).toBe(24_576);
-    expect(() => small.reserve(24_577)).toThrow(/1572872 bytes.*limit is 24 pages = 1572864 bytes/);
+    expect(() => small.reserve(24_577)).toThrow(/1835016 bytes.*limit is 28 pages = 1835008 bytes/);
   });
 });
 

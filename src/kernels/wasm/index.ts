@@ -4,15 +4,15 @@
  * one WebAssembly linear memory that IS the store, so the numeric code's
  * factor and frontal stack never get copied to call a kernel.
  *
- * Memory layout: bytes [0, 1376256) (21 pages) are the kernels' own scratch
+ * Memory layout: bytes [0, 1638400) (25 pages) are the kernels' own scratch
  * (packed panels, edge tile, L·D·Lᵀ chunk; see kernels.wat); the store (the
- * Float64Array returned by `reserve`/`view`) starts at byte 1376256, and
- * store offset x is byte address 1376256 + 8x.
+ * Float64Array returned by `reserve`/`view`) starts at byte 1638400, and
+ * store offset x is byte address 1638400 + 8x.
  *
  * Capacity: wasm32 memory has at most 65536 pages of 64 KiB (4 GiB), which
  * Node 20's V8 grants (`new WebAssembly.Memory({ initial: 1, maximum: 65536 })`
  * is accepted, 65537 is a RangeError), so a store of up to
- * (2^32 − 1376256) / 8 ≈ 536.7 million doubles fits. `reserve` computes the pages
+ * (2^32 − 1638400) / 8 ≈ 536.7 million doubles fits. `reserve` computes the pages
  * a request needs before growing and throws CapacityError naming the bytes
  * requested and the page limit when it is beyond; a grow that the engine or
  * the OS refuses is reported the same way. A factor larger than one memory
@@ -27,8 +27,8 @@ import { CapacityError, InputError, SeptumError } from "../../errors.js";
 import type { DenseKernels } from "../types.js";
 import { KERNELS_WASM_BASE64 } from "./binary.generated.js";
 
-/** Bytes reserved for the kernels' scratch below the store (21 pages: see kernels.wat). */
-export const STORE_BASE_BYTES = 1376256;
+/** Bytes reserved for the kernels' scratch below the store (25 pages: see kernels.wat). */
+export const STORE_BASE_BYTES = 1638400;
 const BASE = STORE_BASE_BYTES;
 const PAGE = 65536;
 /** wasm32 limit: 65536 pages = 4 GiB. */

@@ -21,11 +21,11 @@
 ;;   - leading dimensions are in ELEMENTS (converted to bytes here);
 ;;   - blocks are column-major doubles.
 ;; Memory below the store is this module's scratch (the JS loader places the
-;; store at byte 1376256 = 21 pages):
-;;   [0, 32768)         L·D·Lᵀ row chunk (128 × 32 doubles)
-;;   [32768, 32896)     one 4×4 tile for edge updates
-;;   [65536, 327680)    packed slab of A (128 rows × 256 deep)
-;;   [327680, 1376256)  packed panel of B (512 rows × 256 deep)
+;; store at byte 1638400 = 25 pages):
+;;   [0, 262144)        L·D·Lᵀ row chunk (128 rows × up to 256 columns)
+;;   [262144, 262272)   one 4×4 tile for edge updates
+;;   [327680, 589824)   packed slab of A (128 rows × 256 deep)
+;;   [589824, 1638400)  packed panel of B (512 rows × 256 deep)
 (module
   (import "env" "memory" (memory 1))
 
@@ -39,7 +39,7 @@
   ;; ---------------------------------------------------------------------
   ;; 4×4 micro-kernel: C[0:4,0:4] −= A[0:4,0:k]·B[0:4,0:k]ᵀ. Strides in bytes.
   ;; $diag = 1: only entries i ≥ j are written (tile on the diagonal);
-  ;; $diag = 2: the product A·Bᵀ itself goes to the edge tile at 32768 (C unused).
+  ;; $diag = 2: the product A·Bᵀ itself goes to the edge tile at 262144 (C unused).
   (func $tile44 (param $k i32) (param $a i32) (param $lda i32) (param $b i32) (param $ldb i32)
                 (param $c i32) (param $ldc i32) (param $diag i32)
     (local $c00 v128) (local $c01 v128) (local $c10 v128) (local $c11 v128)
@@ -65,14 +65,14 @@
       (br_if $L (i32.ne (local.tee $p (i32.add (local.get $p) (i32.const 1))) (local.get $k))))
     (if (i32.eq (local.get $diag) (i32.const 2))
       (then
-        (v128.store offset=32768 (i32.const 0) (local.get $c00))
-        (v128.store offset=32784 (i32.const 0) (local.get $c01))
-        (v128.store offset=32800 (i32.const 0) (local.get $c10))
-        (v128.store offset=32816 (i32.const 0) (local.get $c11))
-        (v128.store offset=32832 (i32.const 0) (local.get $c20))
-        (v128.store offset=32848 (i32.const 0) (local.get $c21))
-        (v128.store offset=32864 (i32.const 0) (local.get $c30))
-        (v128.store offset=32880 (i32.const 0) (local.get $c31))
+        (v128.store offset=262144 (i32.const 0) (local.get $c00))
+        (v128.store offset=262160 (i32.const 0) (local.get $c01))
+        (v128.store offset=262176 (i32.const 0) (local.get $c10))
+        (v128.store offset=262192 (i32.const 0) (local.get $c11))
+        (v128.store offset=262208 (i32.const 0) (local.get $c20))
+        (v128.store offset=262224 (i32.const 0) (local.get $c21))
+        (v128.store offset=262240 (i32.const 0) (local.get $c30))
+        (v128.store offset=262256 (i32.const 0) (local.get $c31))
         (return)))
     ;; column 0: rows 0..3 (all on or below the diagonal)
     (v128.store (local.get $c) (f64x2.sub (v128.load (local.get $c)) (local.get $c00)))
@@ -232,7 +232,7 @@
       (local.set $p (i32.add (local.get $p) (i32.const 1)))
       (br $P))))
 
-  ;; C[0:mr, 0:nr] −= edge tile (at 32768, 4×4), restricted to off + i ≥ j.
+  ;; C[0:mr, 0:nr] −= edge tile (at 262144, 4×4), restricted to off + i ≥ j.
   (func $flush (param $mr i32) (param $nr i32) (param $c i32) (param $ldc i32) (param $off i32)
     (local $i i32) (local $j i32) (local $cj i32)
     (block $JD (loop $J
@@ -245,15 +245,15 @@
           (then
             (f64.store (i32.add (local.get $cj) (i32.shl (local.get $i) (i32.const 3)))
               (f64.sub (f64.load (i32.add (local.get $cj) (i32.shl (local.get $i) (i32.const 3))))
-                       (f64.load offset=32768
+                       (f64.load offset=262144
                          (i32.shl (i32.add (local.get $i) (i32.shl (local.get $j) (i32.const 2))) (i32.const 3)))))))
         (local.set $i (i32.add (local.get $i) (i32.const 1)))
         (br $I)))
       (local.set $j (i32.add (local.get $j) (i32.const 1)))
       (br $J))))
 
-  ;; One packed A slab (rows ic.., mc of them, at 65536) against one packed B
-  ;; panel (rows jc.., nc of them, at 327680), kc deep: all 4×4 tiles of C.
+  ;; One packed A slab (rows ic.., mc of them, at 327680) against one packed B
+  ;; panel (rows jc.., nc of them, at 589824), kc deep: all 4×4 tiles of C.
   (func $macro (param $ic i32) (param $mc i32) (param $jc i32) (param $nc i32) (param $kc i32)
                (param $c i32) (param $ldc i32) (param $lower i32)
     (local $jr i32) (local $ir i32) (local $i i32) (local $j i32) (local $mr i32) (local $nr i32)
@@ -266,7 +266,7 @@
                           (i32.ge_s (local.get $j) (i32.add (local.get $ic) (local.get $mc)))))
       (local.set $nr (select (i32.const 4) (i32.sub (local.get $nc) (local.get $jr))
                              (i32.ge_s (i32.sub (local.get $nc) (local.get $jr)) (i32.const 4))))
-      (local.set $pb (i32.add (i32.const 327680) (i32.mul (i32.shr_u (local.get $jr) (i32.const 2)) (local.get $sl))))
+      (local.set $pb (i32.add (i32.const 589824) (i32.mul (i32.shr_u (local.get $jr) (i32.const 2)) (local.get $sl))))
       (local.set $ir (i32.const 0))
       (if (i32.and (local.get $lower) (i32.gt_s (local.get $j) (local.get $ic)))
         (then (local.set $ir (i32.sub (local.get $j) (local.get $ic)))))
@@ -280,12 +280,12 @@
         (if (i32.and (i32.eq (local.get $mr) (i32.const 4)) (i32.eq (local.get $nr) (i32.const 4)))
           (then
             (call $tile44 (local.get $kc)
-              (i32.add (i32.const 65536) (i32.mul (i32.shr_u (local.get $ir) (i32.const 2)) (local.get $sl)))
+              (i32.add (i32.const 327680) (i32.mul (i32.shr_u (local.get $ir) (i32.const 2)) (local.get $sl)))
               (i32.const 32) (local.get $pb) (i32.const 32) (local.get $pc) (local.get $ldc)
               (i32.and (local.get $lower) (i32.eq (local.get $i) (local.get $j)))))
           (else
             (call $tile44 (local.get $kc)
-              (i32.add (i32.const 65536) (i32.mul (i32.shr_u (local.get $ir) (i32.const 2)) (local.get $sl)))
+              (i32.add (i32.const 327680) (i32.mul (i32.shr_u (local.get $ir) (i32.const 2)) (local.get $sl)))
               (i32.const 32) (local.get $pb) (i32.const 32) (i32.const 0) (i32.const 0) (i32.const 2))
             (call $flush (local.get $mr) (local.get $nr) (local.get $pc) (local.get $ldc)
               (select (i32.sub (local.get $i) (local.get $j)) (i32.const 0x40000000) (local.get $lower)))))
@@ -310,7 +310,7 @@
         (call $pack (local.get $nc) (local.get $kc)
           (i32.add (i32.add (local.get $b) (i32.shl (local.get $jc) (i32.const 3)))
                    (i32.mul (local.get $pc) (local.get $ldb)))
-          (local.get $ldb) (i32.const 327680))
+          (local.get $ldb) (i32.const 589824))
         (local.set $ic (select (local.get $jc) (i32.const 0) (local.get $lower)))
         (block $ID (loop $I
           (br_if $ID (i32.ge_s (local.get $ic) (local.get $m)))
@@ -319,7 +319,7 @@
           (call $pack (local.get $mc) (local.get $kc)
             (i32.add (i32.add (local.get $a) (i32.shl (local.get $ic) (i32.const 3)))
                      (i32.mul (local.get $pc) (local.get $lda)))
-            (local.get $lda) (i32.const 65536))
+            (local.get $lda) (i32.const 327680))
           (call $macro (local.get $ic) (local.get $mc) (local.get $jc) (local.get $nc) (local.get $kc)
             (local.get $c) (local.get $ldc) (local.get $lower))
           (local.set $ic (i32.add (local.get $ic) (local.get $mc)))
@@ -463,18 +463,23 @@
       (local.get $b) (i32.shl (local.get $ldb) (i32.const 3)) (local.get $unit)))
 
   ;; ---------------------------------------------------------------------
-  ;; Blocked right-looking Cholesky, blocks of 32: factor the diagonal block,
-  ;; solve the panel below it, update the trailing lower triangle (SYRK).
-  (func (export "potrf") (param $n i32) (param $a i32) (param $lda i32) (result i32)
+  ;; Blocked right-looking Cholesky in blocks of nb: factor the diagonal
+  ;; block (recursively in blocks of 32 when nb > 32, else unblocked), solve
+  ;; the panel below it, update the trailing lower triangle (SYRK). Two levels
+  ;; (256, then 32) keep the SYRK deep enough (k = 256) that the trailing
+  ;; matrix is not streamed from memory once per 32 columns. lda in bytes.
+  (func $potrf_r (param $n i32) (param $a i32) (param $lda i32) (param $nb i32) (result i32)
     (local $j0 i32) (local $jb i32) (local $info i32) (local $d i32) (local $r i32) (local $rest i32)
-    (local.set $lda (i32.shl (local.get $lda) (i32.const 3)))
     (block $BD (loop $B
       (br_if $BD (i32.ge_s (local.get $j0) (local.get $n)))
-      (local.set $jb (select (i32.const 32) (i32.sub (local.get $n) (local.get $j0))
-                             (i32.ge_s (i32.sub (local.get $n) (local.get $j0)) (i32.const 32))))
+      (local.set $jb (select (local.get $nb) (i32.sub (local.get $n) (local.get $j0))
+                             (i32.ge_s (i32.sub (local.get $n) (local.get $j0)) (local.get $nb))))
       (local.set $d (i32.add (i32.add (local.get $a) (i32.shl (local.get $j0) (i32.const 3)))
                              (i32.mul (local.get $j0) (local.get $lda))))
-      (local.set $info (call $potf2 (local.get $jb) (local.get $d) (local.get $lda)))
+      (local.set $info
+        (if (result i32) (i32.gt_s (local.get $nb) (i32.const 32))
+          (then (call $potrf_r (local.get $jb) (local.get $d) (local.get $lda) (i32.const 32)))
+          (else (call $potf2 (local.get $jb) (local.get $d) (local.get $lda)))))
       (if (i32.ge_s (local.get $info) (i32.const 0))
         (then (return (i32.add (local.get $j0) (local.get $info)))))
       (local.set $rest (i32.sub (i32.sub (local.get $n) (local.get $j0)) (local.get $jb)))
@@ -488,6 +493,9 @@
       (local.set $j0 (i32.add (local.get $j0) (local.get $jb)))
       (br $B)))
     (i32.const -1))
+
+  (func (export "potrf") (param $n i32) (param $a i32) (param $lda i32) (result i32)
+    (call $potrf_r (local.get $n) (local.get $a) (i32.shl (local.get $lda) (i32.const 3)) (i32.const 256)))
 
   ;; ---------------------------------------------------------------------
   ;; Unblocked right-looking L·D·Lᵀ of the n×n lower triangle at a (lda in
@@ -523,7 +531,7 @@
   ;; Trailing update of blocked L·D·Lᵀ. The panel W (rest × jb at w) holds
   ;; L21·D1 (after the unit triangular solve); d points at the diagonal block
   ;; (D1 on its diagonal). A22 −= (W·D1⁻¹)·Wᵀ, in chunks of 128 rows: the chunk
-  ;; W[r0:r1]·D1⁻¹ is formed in scratch at address 0 (128 × 32 doubles), then
+  ;; W[r0:r1]·D1⁻¹ is formed in scratch at address 0 (128 × jb ≤ 256 doubles), then
   ;; one GEMM for the block left of the diagonal and one lower GEMM on it.
   (func $ldlt_update (param $rest i32) (param $jb i32) (param $d i32) (param $w i32)
                      (param $c i32) (param $lda i32)
@@ -561,18 +569,21 @@
       (local.set $r0 (local.get $r1))
       (br $R))))
 
-  ;; Blocked right-looking L·D·Lᵀ without pivoting, blocks of 32.
-  (func (export "ldlt") (param $n i32) (param $a i32) (param $lda i32) (param $tiny f64) (result i32)
+  ;; Blocked right-looking L·D·Lᵀ without pivoting in blocks of nb (256,
+  ;; then 32 inside the diagonal block, as for Cholesky). lda in bytes.
+  (func $ldlt_r (param $n i32) (param $a i32) (param $lda i32) (param $tiny f64) (param $nb i32) (result i32)
     (local $j0 i32) (local $jb i32) (local $info i32) (local $d i32) (local $r i32) (local $rest i32)
     (local $p i32)
-    (local.set $lda (i32.shl (local.get $lda) (i32.const 3)))
     (block $BD (loop $B
       (br_if $BD (i32.ge_s (local.get $j0) (local.get $n)))
-      (local.set $jb (select (i32.const 32) (i32.sub (local.get $n) (local.get $j0))
-                             (i32.ge_s (i32.sub (local.get $n) (local.get $j0)) (i32.const 32))))
+      (local.set $jb (select (local.get $nb) (i32.sub (local.get $n) (local.get $j0))
+                             (i32.ge_s (i32.sub (local.get $n) (local.get $j0)) (local.get $nb))))
       (local.set $d (i32.add (i32.add (local.get $a) (i32.shl (local.get $j0) (i32.const 3)))
                              (i32.mul (local.get $j0) (local.get $lda))))
-      (local.set $info (call $ldl2 (local.get $jb) (local.get $d) (local.get $lda) (local.get $tiny)))
+      (local.set $info
+        (if (result i32) (i32.gt_s (local.get $nb) (i32.const 32))
+          (then (call $ldlt_r (local.get $jb) (local.get $d) (local.get $lda) (local.get $tiny) (i32.const 32)))
+          (else (call $ldl2 (local.get $jb) (local.get $d) (local.get $lda) (local.get $tiny)))))
       (if (i32.ge_s (local.get $info) (i32.const 0))
         (then (return (i32.add (local.get $j0) (local.get $info)))))
       (local.set $rest (i32.sub (i32.sub (local.get $n) (local.get $j0)) (local.get $jb)))
@@ -595,4 +606,8 @@
       (local.set $j0 (i32.add (local.get $j0) (local.get $jb)))
       (br $B)))
     (i32.const -1))
+
+  (func (export "ldlt") (param $n i32) (param $a i32) (param $lda i32) (param $tiny f64) (result i32)
+    (call $ldlt_r (local.get $n) (local.get $a) (i32.shl (local.get $lda) (i32.const 3)) (local.get $tiny)
+      (i32.const 256)))
 )
