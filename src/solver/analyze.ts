@@ -1,0 +1,132 @@
+/**
+ * analyze(): the front door of the pipeline. Reads the pattern of a symmetric
+ * matrix (any storage form), orders it, runs the symbolic phase and predicts
+ * the numeric phase's memory, all before any numeric storage exists.
+ */
+import { AbortedError, InputError } from "../errors.js";
+import { adjacencyGraph } from "../graph/adjacency.js";
+import type { SparseMatrix } from "../matrix/sparse.js";
+import { requireSquare, storageForm } from "../matrix/symmetric.js";
+import { predictWorkspace } from "../numeric/workspace.js";
+import { computeOrdering } from "../ordering/index.js";
+import { symbolicFactorization, type AmalgamationOptions } from "../symbolic/index.js";
+import { Analysis } from "./analysis.js";
+import { supernodeExtremes } from "./stats.js";
+
+/** Named fill-reducing orderings. */
+export type OrderingName = "nested-dissection" | "minimum-degree" | "reverse-cuthill-mckee" | "natural";
+
+/** Stage and fraction done, reported by long-running calls. */
+export interface Progress {
+  readonly phase: "ordering" | "symbolic" | "factor";
+  /** 0..1 within the phase. */
+  readonly fraction: number;
+}
+
+/** Options of {@link analyze}. */
+export interface AnalyzeOptions {
+  /**
+   * A named ordering, or a permutation (new → original) of 0..n−1.
+   * Default: nested dissection, or minimum degree for small matrices.
+   */
+  ordering?: OrderingName | Int32Array | ArrayLike<number>;
+  /** Seed of the randomized parts of nested dissection (deterministic for a given seed). Default 1. */
+  seed?: number;
+  /** Node coordinates for nested dissection: 2 or 3 values per row/column of A. */
+  coordinates?: Float64Array;
+  /** Bounds on relaxed supernode amalgamation, or false to keep fundamental supernodes. */
+  amalgamation?: AmalgamationOptions | false;
+  /** Called as work proceeds. */
+  onProgress?: (progress: Progress) => void;
+  /** Stops the analysis with AbortedError. */
+  signal?: AbortSignal;
+}
+
+type OrderingChoice = OrderingName | Int32Array;
+
+const NAMES: readonly string[] = ["nested-dissection", "minimum-degree", "reverse-cuthill-mckee", "natural"];
+
+/** Order and analyse the pattern of the symmetric matrix A. */
+export function analyze(A: SparseMatrix, options: AnalyzeOptions = {}): Analysis {
+  requireSquare(A);
+  const { signal, onProgress } = options;
+  const choice = orderingChoice(options.ordering);
+  checkAbort(signal);
+  const graph = adjacencyGraph(A);
+  const t0 = now();
+  const ordering = computeOrdering(graph, {
+    ordering: choice,
+    seed: options.seed,
+    coordinates: options.coordinates,
+    signal,
+    onProgress: onProgress ? (fraction) => onProgress({ phase: "ordering", fraction }) : undefined,
+  });
+  const t1 = now();
+  checkAbort(signal);
+  const sym = symbolicFactorization(graph, ordering.permutation, options.amalgamation ?? {});
+  const work = predictWorkspace(sym.structure, "cholesky");
+  const t2 = now();
+  onProgress?.({ phase: "symbolic", fraction: 1 });
+  const ext = supernodeExtremes(sym.structure);
+  return new Analysis({
+    permutation: sym.permutation,
+    inversePermutation: sym.inverse,
+    orderingPermutation: ordering.permutation,
+    separatorTree: ordering.separatorTree,
+    eliminationTree: sym.parent,
+    columnCounts: sym.columnCounts,
+    structure: sym.structure,
+    stats: {
+      n: A.ncols,
+      nnzA: lowerCount(A),
+      nnzL: sym.nnzL,
+      flops: sym.flops,
+      supernodes: sym.structure.supernodeCount,
+      largestSupernode: ext.columns,
+      largestFront: ext.rows,
+      factorBytes: 8 * work.factorDoubles,
+      peakBytes: work.peakBytes,
+      ordering: ordering.name ?? (typeof choice === "string" ? choice : choice ? "user" : "default"),
+      orderingSeconds: t1 - t0,
+      symbolicSeconds: t2 - t1,
+    },
+  });
+}
+
+function orderingChoice(o: AnalyzeOptions["ordering"]): OrderingChoice | undefined {
+  if (o === undefined) return undefined;
+  if (typeof o === "string") {
+    if (!NAMES.includes(o)) throw new InputError(`unknown ordering "${o}"; expected one of ${NAMES.join(", ")} or a permutation`);
+    return o as OrderingName;
+  }
+  if (o instanceof Int32Array) return o;
+  if (typeof o === "object" && o !== null && typeof (o as ArrayLike<number>).length === "number") {
+    const a = o as ArrayLike<number>;
+    const p = new Int32Array(a.length);
+    for (let k = 0; k < a.length; k++) {
+      if (!Number.isInteger(a[k])) throw new InputError(`ordering[${k}] = ${a[k]} is not an integer index`);
+      p[k] = a[k];
+    }
+    return p;
+  }
+  throw new InputError("ordering must be a name or a permutation array");
+}
+
+/** Entries of the lower triangle (diagonal included) of the symmetric matrix A stands for. */
+function lowerCount(A: SparseMatrix): number {
+  const form = storageForm(A);
+  if (form !== "full") return A.nnz;
+  let c = 0;
+  for (let j = 0; j < A.ncols; j++) {
+    for (let p = A.colPtr[j]; p < A.colPtr[j + 1]; p++) if (A.rowIdx[p] >= j) c++;
+  }
+  return c;
+}
+
+function checkAbort(signal: AbortSignal | undefined): void {
+  if (signal?.aborted) throw new AbortedError("analysis aborted");
+}
+
+function now(): number {
+  return performance.now() / 1000;
+}
