@@ -7,9 +7,9 @@
 export type Rgb = readonly [number, number, number];
 
 /** Stops of the density ramp: empty → sparse → dense. */
-export const DENSITY_STOPS: readonly Rgb[] = [[214, 228, 245], [107, 158, 214], [37, 87, 163], [13, 33, 84]];
+export const DENSITY_STOPS: readonly Rgb[] = [[140, 178, 228], [74, 130, 205], [37, 87, 163], [13, 33, 84]];
 /** Stops of the factor ramp (warm, so L is told apart from A at a glance). */
-export const FACTOR_STOPS: readonly Rgb[] = [[253, 224, 197], [243, 148, 79], [196, 72, 27], [105, 28, 12]];
+export const FACTOR_STOPS: readonly Rgb[] = [[248, 180, 128], [240, 135, 62], [196, 72, 27], [105, 28, 12]];
 /** Stops of the temperature ramp: cool → hot. */
 export const HEAT_STOPS: readonly Rgb[] = [
   [32, 44, 110], [36, 110, 178], [52, 170, 170], [170, 214, 92], [250, 200, 60], [240, 120, 40], [180, 30, 40],

@@ -31,8 +31,8 @@ figcaption{font-size:13px;color:var(--mute);padding:4px 6px 0}figcaption b{color
 .box>svg{display:block;max-width:100%;height:auto}
 .tedges line{stroke:#b8c2cf;stroke-width:1.2}
 .box{background:#fff;border:1px solid var(--line);border-radius:10px;padding:14px 16px;overflow-x:auto}
-table.cmp{border-collapse:collapse;width:100%;font-variant-numeric:tabular-nums;font-size:14px}
-.cmp th,.cmp td{padding:7px 9px;border-bottom:1px solid var(--line);text-align:left;white-space:nowrap}
+table.cmp{border-collapse:collapse;width:100%;font-variant-numeric:tabular-nums;font-size:13.5px}
+.cmp th,.cmp td{padding:7px 6px;border-bottom:1px solid var(--line);text-align:left;white-space:nowrap}
 .cmp thead th{font-size:12px;color:var(--mute);font-weight:600}
 .cmp .num{text-align:right}.cmp .best{font-weight:700}.cmp tr.shown{background:#f2f6fd}
 .tag{font-size:11px;font-weight:500;color:var(--accent);border:1px solid #c5d5ef;border-radius:8px;padding:0 6px;margin-left:4px}

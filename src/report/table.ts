@@ -8,8 +8,8 @@ import type { ReportOrdering } from "./types.js";
 
 function bar(value: number, lo: number, hi: number, colour: string): string {
   const span = Math.log10(hi) - Math.log10(lo) || 1;
-  const w = 8 + 112 * ((Math.log10(value) - Math.log10(lo)) / span);
-  return `<svg width="122" height="10" class="bar"><rect width="${w.toFixed(1)}" height="10" rx="2" fill="${colour}"/></svg>`;
+  const w = 6 + 74 * ((Math.log10(value) - Math.log10(lo)) / span);
+  return `<svg width="82" height="10" class="bar"><rect width="${w.toFixed(1)}" height="10" rx="2" fill="${colour}"/></svg>`;
 }
 
 function secs(x: number | undefined): string {
