@@ -70,7 +70,8 @@ const BANNER = "%%matrixmarket";
  */
 export function readMatrixMarket(text: string | Uint8Array): MarketContents {
   const bytes = typeof text === "string" ? new TextEncoder().encode(text) : text;
-  const c = new Cursor(bytes);
+  // UTF-8 and UTF-16 lengths agree exactly when the text is pure ASCII.
+  const c = new Cursor(bytes, typeof text === "string" && text.length === bytes.length ? text : null);
   skipByteOrderMark(c);
   const banner = readBanner(c);
   const comments: string[] = [];

@@ -41,7 +41,23 @@ function isBlank(ch: number): boolean {
 export class Cursor {
   pos = 0;
   line = 1;
-  constructor(readonly bytes: Uint8Array) {}
+  /**
+   * @param bytes the UTF-8 text
+   * @param ascii the same text as a string when every character is ASCII
+   *   (byte offsets are then string offsets), else null
+   */
+  constructor(
+    readonly bytes: Uint8Array,
+    private readonly ascii: string | null = null,
+  ) {}
+
+  /** Bytes start..end (an ASCII number token) as a string. */
+  slice(start: number, end: number): string {
+    if (this.ascii !== null) return this.ascii.slice(start, end);
+    let s = "";
+    for (let p = start; p < end; p++) s += String.fromCharCode(this.bytes[p]!);
+    return s;
+  }
 
   /** Skip spaces, tabs and carriage returns. */
   skipBlanks(): void {
@@ -157,7 +173,7 @@ export function scanInteger(c: Cursor): number {
     ch = b[++p];
   }
   if (p === digitsStart || !endsToken(b, p)) return NaN;
-  if (p - digitsStart > EXACT_DIGITS) v = Math.abs(Number(latin1(b, digitsStart, p)));
+  if (p - digitsStart > EXACT_DIGITS) v = Math.abs(Number(c.slice(digitsStart, p)));
   c.pos = p;
   return neg ? -v : v;
 }
@@ -175,9 +191,13 @@ export function scanReal(c: Cursor): number {
   let ch = b[p];
   const neg = ch === MINUS;
   if (neg || ch === PLUS) ch = b[++p];
-  // value = mant * 10^(pendingZeros + exp10); zeros are applied lazily so
-  // trailing zeros (as in 1.0000000000000000e+00) do not count as digits.
-  let mant = 0;
+  // Significand = head·10^tailDigits + tail: the first 15 significant digits
+  // in head, the next 4 in tail; sig counts them all. Zeros wait in
+  // pendingZeros until a non-zero digit follows, so trailing zeros (as in
+  // 1.0000000000000000e+00) cost nothing. value = significand·10^(exp10 + pendingZeros).
+  let head = 0;
+  let tail = 0;
+  let tailDigits = 0;
   let sig = 0;
   let pendingZeros = 0;
   let exp10 = 0;
@@ -188,15 +208,20 @@ export function scanReal(c: Cursor): number {
       digits++;
       if (seenDot) exp10--;
       if (ch === ZERO) {
-        if (mant !== 0) pendingZeros++;
+        if (sig !== 0) pendingZeros++;
         continue;
       }
-      if (pendingZeros > 0) {
-        mant *= pendingZeros < 23 ? POW10[pendingZeros]! : Math.pow(10, pendingZeros);
-        sig += pendingZeros;
-        pendingZeros = 0;
+      if (pendingZeros > 0 && sig + pendingZeros > MAX_DIGITS) {
+        sig += pendingZeros; // too long for the fast paths anyway
+      } else {
+        for (; pendingZeros > 0; pendingZeros--, sig++) {
+          if (sig < EXACT_DIGITS) head *= 10;
+          else { tail *= 10; tailDigits++; }
+        }
       }
-      mant = mant * 10 + (ch - ZERO);
+      pendingZeros = 0;
+      if (sig < EXACT_DIGITS) head = head * 10 + (ch - ZERO);
+      else if (sig < MAX_DIGITS) { tail = tail * 10 + (ch - ZERO); tailDigits++; }
       sig++;
     } else if (ch === DOT && !seenDot) {
       seenDot = true;
@@ -211,13 +236,57 @@ export function scanReal(c: Cursor): number {
   }
   if (!endsToken(b, p)) return NaN;
   c.pos = p;
-  const e = exp10 + pendingZeros;
-  let v: number;
-  if (mant === 0) v = 0;
-  else if (sig <= EXACT_DIGITS && e >= 0 && e <= 22) v = mant * POW10[e]!;
-  else if (sig <= EXACT_DIGITS && e < 0 && e >= -22) v = mant / POW10[-e]!;
-  else return Number(latin1(b, start, p));
+  if (sig === 0) return neg ? -0 : 0;
+  let v = decimalToDouble(head, tail, tailDigits, sig, exp10 + pendingZeros);
+  if (Number.isNaN(v)) v = Math.abs(Number(c.slice(start, p)));
   return neg ? -v : v;
+}
+
+/** Most significant digits handled without Number(): 15 in head plus 4 in tail. */
+const MAX_DIGITS = 19;
+
+/**
+ * (head·10^tailDigits + tail)·10^e correctly rounded, or NaN when neither
+ * fast path applies. Up to 15 digits with |e| ≤ 22: Clinger's exact path.
+ * 16..19 digits with -22 ≤ e < 0: the significand held exactly as a sum of two
+ * doubles, divided by 10^-e in double-double arithmetic (Dekker 1971, "A
+ * floating-point technique for extending the available precision"), with
+ * an error far below 2^-80 relative; the result is accepted only when every
+ * value within 2^-80 of it rounds to the same double, which makes it correctly rounded.
+ */
+function decimalToDouble(head: number, tail: number, tailDigits: number, sig: number, e: number): number {
+  if (sig <= EXACT_DIGITS) {
+    if (e >= 0 && e <= 22) return head * POW10[e]!;
+    if (e < 0 && e >= -22) return head / POW10[-e]!;
+    return NaN;
+  }
+  if (sig > MAX_DIGITS || e >= 0 || e < -22) return NaN;
+  // Significand exactly as hi + lo.
+  const p = head * POW10[tailDigits]!;
+  const pErr = productError(head, POW10[tailDigits]!, p);
+  const hi = p + tail;
+  const t = hi - p;
+  const lo = (p - (hi - t)) + (tail - t) + pErr;
+  // (hi + lo) / d in double-double: q1 + q2.
+  const d = POW10[-e]!;
+  const q1 = hi / d;
+  const qd = q1 * d;
+  const r = ((hi - qd) - productError(q1, d, qd)) + lo;
+  const q2 = r / d;
+  const eta = Math.abs(q1) * 8.271806125530277e-25; // 2^-80
+  const below = q1 + (q2 - eta);
+  return below === q1 + (q2 + eta) ? below : NaN;
+}
+
+/** Exact a·b − p for p = fl(a·b), by Dekker's splitting (no fused multiply-add in JS). */
+function productError(a: number, b: number, p: number): number {
+  const ca = 134217729 * a; // 2^27 + 1
+  const ah = ca - (ca - a);
+  const al = a - ah;
+  const cb = 134217729 * b;
+  const bh = cb - (cb - b);
+  const bl = b - bh;
+  return ((ah * bh - p) + ah * bl + al * bh) + al * bl;
 }
 
 /** Exponent digits after 'e'/'E' starting at `p`; `end` is -1 when malformed. */
@@ -235,11 +304,4 @@ function scanExponent(b: Uint8Array, p: number): { value: number; end: number } 
   exponentResult.value = neg ? -v : v;
   exponentResult.end = p === first ? -1 : p;
   return exponentResult;
-}
-
-/** Bytes start..end as a string, one char per byte (enough for ASCII number tokens). */
-function latin1(b: Uint8Array, start: number, end: number): string {
-  let s = "";
-  for (let p = start; p < end; p++) s += String.fromCharCode(b[p]!);
-  return s;
 }
