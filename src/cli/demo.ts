@@ -6,7 +6,7 @@
  * report and a temperature picture.
  */
 import { SparseMatrix } from "../matrix/sparse.js";
-import { lowerTriangle, symmetricMultiply } from "../matrix/symmetric.js";
+import { symmetricMultiply } from "../matrix/symmetric.js";
 import { analyze } from "../solver/analyze.js";
 import { batteryHeat, batteryPlate, BATTERY_PLATE } from "../fem/battery.js";
 import { convergenceStudy } from "../fem/manufactured.js";
@@ -23,9 +23,16 @@ import { compareTable } from "./analyze.js";
 import { num, sci, secs, table } from "./format.js";
 import type { CliIO } from "./io.js";
 
-/** Lower triangle of an assembled triplet matrix as a SparseMatrix. */
+/** Lower triangle of an assembled (symmetric, both-triangle) triplet matrix as a SparseMatrix. */
 export function lowerMatrix(t: Triplets): SparseMatrix {
-  return lowerTriangle(SparseMatrix.fromTriplets(t.n, t.n, t.rows, t.cols, t.values));
+  let m = 0;
+  for (let e = 0; e < t.rows.length; e++) if (t.rows[e] >= t.cols[e]) m++;
+  const rows = new Int32Array(m), cols = new Int32Array(m), values = new Float64Array(m);
+  for (let e = 0, k = 0; e < t.rows.length; e++) {
+    if (t.rows[e] < t.cols[e]) continue;
+    rows[k] = t.rows[e]; cols[k] = t.cols[e]; values[k++] = t.values[e];
+  }
+  return SparseMatrix.fromTriplets(t.n, t.n, rows, cols, values);
 }
 
 /** Solve an assembled system with nested dissection (used by the refinement study). */
@@ -36,7 +43,7 @@ export function directSolve(t: Triplets, b: Float64Array): Float64Array {
 
 export function demoCommand(io: CliIO, p: Parsed): number {
   const dir = String(p.values.output ?? "septum-demo");
-  const h = numberOption("size", p.values.size, 1.2, 0.3, 6, false) / 1000;
+  const h = numberOption("size", p.values.size, 1.5, 0.3, 6, false) / 1000;
   const line = progressLine(io, io.stderrIsTTY && !p.values.quiet);
   const say = (s: string) => io.stdout(s);
   const P = BATTERY_PLATE;

@@ -91,7 +91,7 @@ manufactured solution, and writes report.html and temperature.svg to DIR
 
 Options:
   -o, --output DIR  where to write the pictures (default septum-demo)
-  --size H          mesh spacing in millimetres (default 1.2)
+  --size H          mesh spacing in millimetres (default 1.5)
   -q, --quiet       no progress line
 `,
 };
