@@ -415,52 +415,63 @@
 
   ;; ---------------------------------------------------------------------
   ;; B := B · L⁻ᵀ, B m×n at b, L n×n lower at a; unit ≠ 0 takes diag(L) = 1.
-  ;; Left-looking in blocks of 32 columns: the update from earlier columns is
-  ;; one GEMM, the 32-column diagonal solve is column axpys. Strides in bytes.
+  ;; Left-looking in blocks of nb columns: the update from earlier columns is
+  ;; one GEMM; the diagonal block is solved the same way in blocks of 4 (so
+  ;; almost all of its work also runs in the 4×4 tile), and a 4-column block
+  ;; by column axpys. Strides in bytes.
   (func $trsm_b (param $m i32) (param $n i32) (param $a i32) (param $lda i32)
-                (param $b i32) (param $ldb i32) (param $unit i32)
+                (param $b i32) (param $ldb i32) (param $unit i32) (param $nb i32)
     (local $j0 i32) (local $jb i32) (local $j i32) (local $p i32) (local $bj i32)
     (if (i32.or (i32.le_s (local.get $m) (i32.const 0)) (i32.le_s (local.get $n) (i32.const 0)))
       (then (return)))
     (block $BD (loop $B
       (br_if $BD (i32.ge_s (local.get $j0) (local.get $n)))
-      (local.set $jb (select (i32.const 32) (i32.sub (local.get $n) (local.get $j0))
-                             (i32.ge_s (i32.sub (local.get $n) (local.get $j0)) (i32.const 32))))
+      (local.set $jb (select (local.get $nb) (i32.sub (local.get $n) (local.get $j0))
+                             (i32.ge_s (i32.sub (local.get $n) (local.get $j0)) (local.get $nb))))
       ;; B[:, j0:j0+jb] −= B[:, 0:j0] · L[j0:j0+jb, 0:j0]ᵀ
       (call $gemm_b (local.get $m) (local.get $jb) (local.get $j0)
         (local.get $b) (local.get $ldb)
         (i32.add (local.get $a) (i32.shl (local.get $j0) (i32.const 3))) (local.get $lda)
         (i32.add (local.get $b) (i32.mul (local.get $j0) (local.get $ldb))) (local.get $ldb)
         (i32.const 0))
-      (local.set $j (local.get $j0))
-      (block $JD (loop $J
-        (br_if $JD (i32.ge_s (local.get $j) (i32.add (local.get $j0) (local.get $jb))))
-        (local.set $bj (i32.add (local.get $b) (i32.mul (local.get $j) (local.get $ldb))))
-        (local.set $p (local.get $j0))
-        (block $PD (loop $P
-          (br_if $PD (i32.ge_s (local.get $p) (local.get $j)))
-          (call $axpy (local.get $m)
-            (f64.load (i32.add (i32.add (local.get $a) (i32.shl (local.get $j) (i32.const 3)))
-                               (i32.mul (local.get $p) (local.get $lda))))
-            (i32.add (local.get $b) (i32.mul (local.get $p) (local.get $ldb)))
-            (local.get $bj))
-          (local.set $p (i32.add (local.get $p) (i32.const 1)))
-          (br $P)))
-        (if (i32.eqz (local.get $unit))
-          (then (call $scal (local.get $m)
-            (f64.div (f64.const 1)
-              (f64.load (i32.add (i32.add (local.get $a) (i32.shl (local.get $j) (i32.const 3)))
-                                 (i32.mul (local.get $j) (local.get $lda)))))
-            (local.get $bj))))
-        (local.set $j (i32.add (local.get $j) (i32.const 1)))
-        (br $J)))
+      (if (i32.gt_s (local.get $nb) (i32.const 4))
+        (then
+          (call $trsm_b (local.get $m) (local.get $jb)
+            (i32.add (i32.add (local.get $a) (i32.shl (local.get $j0) (i32.const 3)))
+                     (i32.mul (local.get $j0) (local.get $lda)))
+            (local.get $lda)
+            (i32.add (local.get $b) (i32.mul (local.get $j0) (local.get $ldb))) (local.get $ldb)
+            (local.get $unit) (i32.const 4)))
+        (else
+          (local.set $j (local.get $j0))
+          (block $JD (loop $J
+            (br_if $JD (i32.ge_s (local.get $j) (i32.add (local.get $j0) (local.get $jb))))
+            (local.set $bj (i32.add (local.get $b) (i32.mul (local.get $j) (local.get $ldb))))
+            (local.set $p (local.get $j0))
+            (block $PD (loop $P
+              (br_if $PD (i32.ge_s (local.get $p) (local.get $j)))
+              (call $axpy (local.get $m)
+                (f64.load (i32.add (i32.add (local.get $a) (i32.shl (local.get $j) (i32.const 3)))
+                                   (i32.mul (local.get $p) (local.get $lda))))
+                (i32.add (local.get $b) (i32.mul (local.get $p) (local.get $ldb)))
+                (local.get $bj))
+              (local.set $p (i32.add (local.get $p) (i32.const 1)))
+              (br $P)))
+            (if (i32.eqz (local.get $unit))
+              (then (call $scal (local.get $m)
+                (f64.div (f64.const 1)
+                  (f64.load (i32.add (i32.add (local.get $a) (i32.shl (local.get $j) (i32.const 3)))
+                                     (i32.mul (local.get $j) (local.get $lda)))))
+                (local.get $bj))))
+            (local.set $j (i32.add (local.get $j) (i32.const 1)))
+            (br $J)))))
       (local.set $j0 (i32.add (local.get $j0) (local.get $jb)))
       (br $B))))
 
   (func (export "trsm") (param $m i32) (param $n i32) (param $a i32) (param $lda i32)
                         (param $b i32) (param $ldb i32) (param $unit i32)
     (call $trsm_b (local.get $m) (local.get $n) (local.get $a) (i32.shl (local.get $lda) (i32.const 3))
-      (local.get $b) (i32.shl (local.get $ldb) (i32.const 3)) (local.get $unit)))
+      (local.get $b) (i32.shl (local.get $ldb) (i32.const 3)) (local.get $unit) (i32.const 32)))
 
   ;; ---------------------------------------------------------------------
   ;; Blocked right-looking Cholesky in blocks of nb: factor the diagonal
@@ -485,7 +496,7 @@
       (local.set $rest (i32.sub (i32.sub (local.get $n) (local.get $j0)) (local.get $jb)))
       (local.set $r (i32.add (local.get $d) (i32.shl (local.get $jb) (i32.const 3))))
       (call $trsm_b (local.get $rest) (local.get $jb) (local.get $d) (local.get $lda)
-        (local.get $r) (local.get $lda) (i32.const 0))
+        (local.get $r) (local.get $lda) (i32.const 0) (i32.const 32))
       (call $gemm_b (local.get $rest) (local.get $rest) (local.get $jb)
         (local.get $r) (local.get $lda) (local.get $r) (local.get $lda)
         (i32.add (local.get $r) (i32.mul (local.get $jb) (local.get $lda))) (local.get $lda)
@@ -589,7 +600,7 @@
       (local.set $rest (i32.sub (i32.sub (local.get $n) (local.get $j0)) (local.get $jb)))
       (local.set $r (i32.add (local.get $d) (i32.shl (local.get $jb) (i32.const 3))))
       (call $trsm_b (local.get $rest) (local.get $jb) (local.get $d) (local.get $lda)
-        (local.get $r) (local.get $lda) (i32.const 1))
+        (local.get $r) (local.get $lda) (i32.const 1) (i32.const 32))
       (call $ldlt_update (local.get $rest) (local.get $jb) (local.get $d) (local.get $r)
         (i32.add (local.get $r) (i32.mul (local.get $jb) (local.get $lda))) (local.get $lda))
       ;; panel W = L21·D1 → L21
