@@ -12,7 +12,7 @@ import type { Graph } from "./types.js";
 export function adjacencyGraph(A: SparseMatrix): Graph {
   requireSquare(A);
   const n = A.ncols;
-  const T = A.transpose();
+  const T = transposePattern(A);
   const offsets = new Int32Array(n + 1);
   for (let pass = 0; pass < 2; pass++) {
     const neighbours = pass === 1 ? new Int32Array(offsets[n]) : null;
@@ -34,6 +34,17 @@ export function adjacencyGraph(A: SparseMatrix): Graph {
     if (neighbours) return { n, offsets, neighbours };
   }
   throw new Error("unreachable");
+}
+
+/** Pattern of Aᵀ (no values). */
+function transposePattern(A: SparseMatrix): { colPtr: Int32Array; rowIdx: Int32Array } {
+  const n = A.ncols, nz = A.nnz, { colPtr, rowIdx } = A;
+  const tPtr = new Int32Array(n + 1);
+  for (let p = 0; p < nz; p++) tPtr[rowIdx[p] + 1]++;
+  for (let i = 0; i < n; i++) tPtr[i + 1] += tPtr[i];
+  const next = tPtr.slice(0, n), tIdx = new Int32Array(nz);
+  for (let j = 0; j < n; j++) for (let p = colPtr[j]; p < colPtr[j + 1]; p++) tIdx[next[rowIdx[p]]++] = j;
+  return { colPtr: tPtr, rowIdx: tIdx };
 }
 
 /** Number of undirected edges. */

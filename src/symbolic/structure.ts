@@ -45,12 +45,32 @@ export function buildStructure(
       }
     }
     if (q !== rowPtr[s + 1]) throw new Error(`internal: supernode ${s} has ${q - base} rows, predicted ${rows[s]}`);
-    rowIdx.subarray(base + (l - f + 1), q).sort();
+    sortTail(rowIdx, base + (l - f + 1), q, l, mark, s);
     factorPtr[s + 1] = factorPtr[s] + (q - base) * (l - f + 1);
   }
   return {
     n, supernodeCount: ns, superStart: start, superParent: parent, rowPtr, rowIdx, factorPtr, columnSupernode,
   };
+}
+
+/**
+ * Sort the rows below the diagonal block. Often they arrive sorted (one
+ * child, nothing new from A); when they span a narrow range, rescanning the
+ * marker array over that range is linear; otherwise sort.
+ */
+function sortTail(rowIdx: Int32Array, from: number, to: number, l: number, mark: Int32Array, s: number): void {
+  let sorted = true, max = l;
+  for (let q = from; q < to; q++) {
+    const i = rowIdx[q];
+    if (i < max) sorted = false; else max = i;
+  }
+  if (sorted) return;
+  if (max - l <= 8 * (to - from)) {
+    let q = from;
+    for (let i = l + 1; i <= max; i++) if (mark[i] === s) rowIdx[q++] = i;
+  } else {
+    rowIdx.subarray(from, to).sort();
+  }
 }
 
 function push(rowIdx: Int32Array, q: number, end: number, i: number, s: number): number {
