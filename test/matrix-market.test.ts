@@ -152,11 +152,13 @@ describe("lexical details", () => {
   });
 
   it("accepts bytes as well as text, and a UTF-8 byte order mark and non-ASCII comments", () => {
-    const text = "\uFEFF%%MatrixMarket matrix coordinate real general\n% Grüße, ∇·u = 0\n1 1 1\n1 1 2\n";
+    // The long value takes the Number() fallback, which then works from bytes, not string offsets.
+    const long = "0.1234567890123456789012345";
+    const text = `\uFEFF%%MatrixMarket matrix coordinate real general\n% Grüße, ∇·u = 0\n1 1 1\n1 1 ${long}\n`;
     const fromText = sparse(readMatrixMarket(text));
     const fromBytes = sparse(readMatrixMarket(new TextEncoder().encode(text)));
-    expect(fromText.matrix.toDense()).toEqual([[2]]);
-    expect(fromBytes.matrix.toDense()).toEqual([[2]]);
+    expect(fromText.matrix.toDense()).toEqual([[Number(long)]]);
+    expect(fromBytes.matrix.toDense()).toEqual([[Number(long)]]);
     expect(fromBytes.comments).toEqual(["Grüße, ∇·u = 0"]);
   });
 
@@ -260,6 +262,20 @@ function tripletsArb(value: fc.Arbitrary<number>, square = false) {
     });
 }
 
+/** Decimal strings of `digits` significant digits at and beside the midpoint above the double x > 0. */
+function nearMidpoint(x: number, digits: number): string[] {
+  const view = new DataView(new ArrayBuffer(8));
+  view.setFloat64(0, x);
+  const bits = view.getBigUint64(0);
+  const exponent = Number((bits >> 52n) & 0x7ffn) - 1075;
+  const mantissa = (bits & ((1n << 52n) - 1n)) | (1n << 52n);
+  const shift = BigInt(1 - exponent); // x > 2^-1000, so exponent < 0 for the range used
+  const decimal = ((2n * mantissa + 1n) * 5n ** shift).toString(); // midpoint · 10^shift
+  const pointAt = decimal.length - Number(shift);
+  const cut = BigInt(decimal.slice(0, digits));
+  return [cut - 1n, cut, cut + 1n].map((t) => `${t}e${pointAt - t.toString().length}`);
+}
+
 const anyDouble = fc.double({ noNaN: true, noDefaultInfinity: true });
 const smallInteger = fc.integer({ min: -1000, max: 1000 });
 
@@ -359,6 +375,22 @@ describe("round trips (property tests)", () => {
         finite.forEach((w, k) => expect(Object.is(r.values[k], Number(w))).toBe(true));
       }),
     );
+  });
+
+  it("16 to 19 digit decimals next to the exact midpoint between two adjacent doubles read as Number() reads them", () => {
+    // The hardest inputs for correct rounding. The midpoint (2m + 1)·2^(e−1) of a
+    // double m·2^e is written out exactly with BigInt arithmetic, cut to d digits,
+    // and the neighbours one unit away in the last digit are added.
+    const words: string[] = [];
+    fc.assert(
+      fc.property(fc.double({ min: 1e-6, max: 1e6, noNaN: true }), (x) => {
+        words.push(...nearMidpoint(x, 16), ...nearMidpoint(x, 17), ...nearMidpoint(x, 18), ...nearMidpoint(x, 19));
+      }),
+      { numRuns: 2000 },
+    );
+    const r = dense(readMatrixMarket(`%%MatrixMarket matrix array real general\n${words.length} 1\n${words.join("\n")}\n`));
+    const wrong = words.filter((w, k) => !Object.is(r.values[k], Number(w)));
+    expect(wrong).toEqual([]);
   });
 
   it("randomly formatted files (blanks, tabs, CRLF, comments, blank lines, repeats) read as the summed triplets", () => {
