@@ -38,14 +38,17 @@ function grid(k: number, nine = false): Graph {
   return graphFromEdges(k * k, edges);
 }
 
+/** Every vertex exactly once (definition of a permutation); reports the first bad position. */
 function expectPermutation(perm: Int32Array, n: number): void {
   expect(perm.length).toBe(n);
   const seen = new Uint8Array(n);
-  for (const v of perm) {
-    expect(v >= 0 && v < n).toBe(true);
-    expect(seen[v]).toBe(0);
-    seen[v] = 1;
+  let bad = -1;
+  for (let k = 0; k < n && bad < 0; k++) {
+    const v = perm[k];
+    if (!(v >= 0 && v < n) || seen[v]) bad = k;
+    else seen[v] = 1;
   }
+  expect(bad).toBe(-1);
 }
 
 /** nnz(L) incl. diagonal by brute-force symbolic elimination in the given order (the definition). */
