@@ -5,7 +5,7 @@
 // /work/shared/design.md §6), and a naive exact minimum degree written here.
 import { describe, expect, it } from "vitest";
 import fc from "fast-check";
-import { minimumDegree } from "../src/ordering/minimum-degree.js";
+import { minimumDegree, minimumDegreeTrusted } from "../src/ordering/minimum-degree.js";
 import { InputError } from "../src/errors.js";
 import type { Graph } from "../src/graph/types.js";
 
@@ -150,6 +150,22 @@ describe("minimumDegree: valid permutation", () => {
     const path: [number, number][] = [];
     for (let v = 1; v < n; v++) path.push([v - 1, v]);
     expectPermutation(minimumDegree(graphFromEdges(n, path)), n);
+  });
+});
+
+describe("minimumDegree: arena compaction", () => {
+  it("gives the same ordering with almost no spare arena room (compaction and growth exercised)", () => {
+    fc.assert(
+      fc.property(randomGraph, fc.integer({ min: 0, max: 8 }), ({ n, edges }, slack) => {
+        const g = graphFromEdges(n, edges);
+        const roomy = minimumDegreeTrusted(g, Infinity, true);
+        const tight = minimumDegreeTrusted(g, Infinity, true, slack);
+        expect([...tight]).toEqual([...roomy]);
+      }),
+      { numRuns: 300 },
+    );
+    const g = grid(40);
+    expect([...minimumDegreeTrusted(g, Infinity, true, 0)]).toEqual([...minimumDegreeTrusted(g, Infinity, true)]);
   });
 });
 

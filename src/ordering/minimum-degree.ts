@@ -44,12 +44,13 @@ export function minimumDegree(graph: Graph, options: MinimumDegreeOptions = {}):
 /**
  * Same as {@link minimumDegree} without checking the graph: for callers that
  * built the graph themselves (for example the leaves of nested dissection).
+ * `arenaSlack` sets the spare room of the list arena (tests use a tiny value to exercise compaction).
  * @internal
  */
-export function minimumDegreeTrusted(graph: Graph, denseThreshold: number, aggressive: boolean): Int32Array {
+export function minimumDegreeTrusted(graph: Graph, denseThreshold: number, aggressive: boolean, arenaSlack?: number): Int32Array {
   const n = graph.n;
   if (n === 0) return new Int32Array(0);
-  const s = new MdWorkspace(graph);
+  const s = new MdWorkspace(graph, arenaSlack);
   const dense = setAsideDense(s, graph, denseThreshold);
   const el: NewElement = { first: 0, end: 0, cliqueWeight: 0 };
   while (s.eliminated < n) {

@@ -48,11 +48,12 @@ export class MdWorkspace {
   /** Total weight eliminated (pivots, merged, mass eliminated, set aside). */
   eliminated = 0;
 
-  constructor(graph: Graph) {
+  /** `slack`: arena slots beyond the graph's entries (default nnz/5 + 2n + 16); compaction and growth handle any value. */
+  constructor(graph: Graph, slack?: number) {
     const n = graph.n;
     const nnz = graph.offsets[n];
     this.n = n;
-    this.arena = new Int32Array(nnz + Math.ceil(nnz / 5) + 2 * n + 16);
+    this.arena = new Int32Array(nnz + (slack ?? Math.ceil(nnz / 5) + 2 * n + 16));
     this.arena.set(graph.neighbours.subarray(0, nnz));
     this.free = nnz;
     this.start = Int32Array.from(graph.offsets.subarray(0, n));
