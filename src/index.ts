@@ -39,3 +39,5 @@ export { readMatrixMarket, writeMatrixMarket, writeMatrixMarketArray } from "./m
 export type {
   MarketContents, MarketSparse, MarketDense, MarketField, MarketWriteOptions, MarketArrayWriteOptions,
 } from "./matrix/market.js";
+export { minimumDegree, type MinimumDegreeOptions } from "./ordering/minimum-degree.js";
+export { reverseCuthillMcKee } from "./ordering/rcm.js";
