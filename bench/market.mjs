@@ -96,8 +96,11 @@ for (let p = 0; p < vals.length; p++) {
 }
 const B = SparseMatrix.fromCSC(A.nrows, A.ncols, A.colPtr, A.rowIdx, vals);
 const w0 = performance.now();
+const wc0 = process.cpuUsage();
 const text = writeMatrixMarket(B, { symmetric: true });
 const writeSeconds = (performance.now() - w0) / 1000;
+const wc = process.cpuUsage(wc0);
+const writeCpu = (wc.user + wc.system) / 1e6;
 const realBytes = new TextEncoder().encode(text);
 const reals = timeParse(realBytes, RUNS);
 report("stencil, random 17-digit reals (bytes)", realBytes.length, nnz, reals);
@@ -108,4 +111,8 @@ for (let p = 0; p < vals.length; p++) {
 }
 
 table(rows);
-console.log(`write (random reals, symmetric): ${writeSeconds.toFixed(2)} s, ${(nnz / writeSeconds / 1e6).toFixed(2)} M entries/s, ${(text.length / 1e6).toFixed(0)} MB; round trip exact`);
+console.log(
+  `write (random reals, symmetric): ${writeSeconds.toFixed(2)} s (cpu ${writeCpu.toFixed(2)} s), ` +
+    `${(nnz / writeSeconds / 1e6).toFixed(2)} M entries/s, ${(text.length / 1e6).toFixed(0)} MB; round trip exact`,
+);
+console.log(`load average while running: ${(await import("node:os")).loadavg().map((x) => x.toFixed(1)).join(" ")} on ${(await import("node:os")).availableParallelism()} cores`);

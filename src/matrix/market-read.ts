@@ -107,7 +107,6 @@ function readBanner(c: Cursor): Banner {
 
 function checkField(c: Cursor, field: string, original: string, format: string): MarketField {
   if (field === "complex") c.fail("complex matrices are not supported (field 'complex')");
-  if (field === "double") return "real";
   if (field !== "real" && field !== "integer" && field !== "pattern") {
     c.fail(`unknown field '${original}' (expected 'real', 'integer' or 'pattern')`);
   }
