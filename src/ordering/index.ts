@@ -1,21 +1,29 @@
 /**
  * Ordering dispatch: picks the fill-reducing ordering by name, validates a
- * caller's permutation, and returns the permutation (new → original) with the
+ * caller's permutation, compresses indistinguishable vertices before nested
+ * dissection when that shrinks the graph enough (Ashcraft 1995, SIAM J. Sci.
+ * Comput. 16(6)), and returns the permutation (new → original) with the
  * separator tree when nested dissection built one.
  */
-import { InputError } from "../errors.js";
+import { AbortedError, InputError } from "../errors.js";
+import { compressGraph, expandPermutation, type CompressedGraph } from "../graph/compress.js";
 import type { Graph } from "../graph/types.js";
-import { validateCoordinates } from "./coordinates.js";
+import { validateCoordinates, type Coordinates } from "./coordinates.js";
 import { minimumDegree, minimumDegreeTrusted } from "./minimum-degree.js";
 import { nestedDissection } from "./nested-dissection/index.js";
-import type { OrderingResult } from "./types.js";
+import { reverseCuthillMcKee } from "./rcm.js";
+import type { OrderingResult, SeparatorTree } from "./types.js";
 
+/** A named ordering or a caller's permutation (new → original). */
 export type OrderingChoice = "nested-dissection" | "minimum-degree" | "reverse-cuthill-mckee" | "natural" | Int32Array;
 
 /** Options of {@link computeOrdering}. */
 export interface OrderingOptions {
+  /** Default: nested dissection above {@link DISSECTION_THRESHOLD} vertices, minimum degree below. */
   ordering?: OrderingChoice;
+  /** Seed of the randomized steps of nested dissection; same seed, same ordering. Default 1. */
   seed?: number;
+  /** Node coordinates (2 or 3 values per vertex) for coordinate bisection inside nested dissection. */
   coordinates?: Float64Array;
   signal?: AbortSignal;
   onProgress?: (fraction: number) => void;
@@ -24,27 +32,68 @@ export interface OrderingOptions {
 /** Below this order the default is minimum degree, above it nested dissection. */
 export const DISSECTION_THRESHOLD = 200;
 
-/** Compute the ordering requested in `options` for graph g. */
+/** Compress only when the quotient graph has at most this fraction of the vertices. */
+const COMPRESSION_RATIO = 0.75;
+
+/** Computes the ordering requested in `options` for graph g. */
 export function computeOrdering(g: Graph, options: OrderingOptions = {}): OrderingResult {
   const n = g.n;
+  if (options.signal?.aborted) throw new AbortedError("ordering aborted before it started");
   const choice = options.ordering ?? (n > DISSECTION_THRESHOLD ? "nested-dissection" : "minimum-degree");
-  if (choice instanceof Int32Array) return { permutation: validatePermutation(choice, n), name: "user" };
-  switch (choice) {
-    case "natural": return { permutation: Int32Array.from({ length: n }, (_, i) => i), name: choice };
-    case "minimum-degree": return { permutation: minimumDegree(g), name: choice };
-    case "nested-dissection": {
-      const coordinates = options.coordinates ? validateCoordinates(options.coordinates, n) : undefined;
-      const r = nestedDissection(g, {
-        orderLeaf: (leaf) => minimumDegreeTrusted(leaf, Infinity, true),
-        seed: options.seed, coordinates, signal: options.signal, onProgress: options.onProgress,
-      });
-      return { ...r, name: choice };
-    }
-    default: throw new InputError(`ordering "${String(choice)}" is not available`);
+  if (options.seed !== undefined && !Number.isFinite(options.seed)) {
+    throw new InputError(`seed must be a finite number, got ${String(options.seed)}`);
   }
+  let result: OrderingResult;
+  if (choice instanceof Int32Array) result = { permutation: validatePermutation(choice, n), name: "user" };
+  else if (choice === "natural") result = { permutation: identity(n), name: choice };
+  else if (choice === "minimum-degree") result = { permutation: minimumDegree(g), name: choice };
+  else if (choice === "nested-dissection") result = { ...dissect(g, options), name: choice };
+  else if (choice === "reverse-cuthill-mckee") result = { permutation: reverseCuthillMcKee(g), name: choice };
+  else throw new InputError(`unknown ordering "${String(choice)}"`);
+  options.onProgress?.(1);
+  return result;
 }
 
-/** Check that p is a permutation of 0..n−1; the error names the first bad entry. */
+function identity(n: number): Int32Array {
+  const p = new Int32Array(n);
+  for (let i = 0; i < n; i++) p[i] = i;
+  return p;
+}
+
+/** Nested dissection, on the compressed graph when compression pays. */
+function dissect(g: Graph, options: OrderingOptions): OrderingResult {
+  const coordinates = options.coordinates ? validateCoordinates(options.coordinates, g.n) : undefined;
+  const orderLeaf = (leaf: Graph): Int32Array => minimumDegreeTrusted(leaf, Infinity, true);
+  const common = { orderLeaf, seed: options.seed, signal: options.signal, onProgress: options.onProgress };
+  const c = g.n > DISSECTION_THRESHOLD ? compressGraph(g) : null;
+  if (c === null || c.graph.n > COMPRESSION_RATIO * g.n) return nestedDissection(g, { ...common, coordinates });
+  const r = nestedDissection(c.graph, {
+    ...common, vertexWeights: c.weights, coordinates: coordinates && compressCoordinates(c, coordinates),
+  });
+  return { permutation: expandPermutation(c, r.permutation), separatorTree: expandTree(c, r.permutation, r.separatorTree!) };
+}
+
+/** Each supervariable takes the coordinates of its first member. */
+function compressCoordinates(c: CompressedGraph, x: Coordinates): Coordinates {
+  const d = x.dimension;
+  const m = c.graph.n;
+  const values = new Float64Array(m * d);
+  for (let s = 0; s < m; s++) {
+    const v = c.members[c.memberOffsets[s]];
+    for (let a = 0; a < d; a++) values[s * d + a] = x.values[v * d + a];
+  }
+  return { dimension: d, values };
+}
+
+/** Maps tree ranges from compressed positions to original positions. */
+function expandTree(c: CompressedGraph, perm: Int32Array, t: SeparatorTree): SeparatorTree {
+  const start = new Int32Array(perm.length + 1);
+  for (let k = 0; k < perm.length; k++) start[k + 1] = start[k] + c.weights[perm[k]];
+  const map = (a: Int32Array): Int32Array => a.map((k) => start[k]);
+  return { count: t.count, first: map(t.first), separatorFirst: map(t.separatorFirst), end: map(t.end), parent: t.parent.slice() };
+}
+
+/** Checks that p is a permutation of 0..n−1; the error names the first bad entry. */
 export function validatePermutation(p: Int32Array, n: number): Int32Array {
   if (p.length !== n) throw new InputError(`ordering has length ${p.length}, expected n = ${n}`);
   const seen = new Int32Array(n).fill(-1);

@@ -1,0 +1,185 @@
+/**
+ * Nested dissection (George 1973, "Nested dissection of a regular finite
+ * element mesh", SIAM J. Numer. Anal. 10(2)) driven by multilevel vertex
+ * bisection. Pieces are processed from an explicit stack (no recursion): a
+ * piece is split into its connected components, a large connected piece is cut
+ * by a vertex separator numbered last in its range, and pieces below the leaf
+ * size are ordered by the supplied leaf ordering (minimum degree). Produces the
+ * separator tree in the new numbering.
+ */
+import { AbortedError } from "../../errors.js";
+import type { Graph } from "../../graph/types.js";
+import type { Coordinates } from "../coordinates.js";
+import { coordinateCut } from "../coordinates.js";
+import type { OrderingResult, SeparatorTree } from "../types.js";
+import {
+  defaultBisectOptions, multilevelBisection, multilevelSeparator, refineGiven, separate, type BisectOptions,
+} from "./multilevel.js";
+import { fmWork, type FmWork } from "./refine.js";
+import { Rng } from "./rng.js";
+import { components, inducedSubgraph, weightedGraph, type WGraph } from "./wgraph.js";
+
+/** How the cuts are found when coordinates are given. */
+export type CoordinateMode = "refine" | "plain" | "ignore";
+
+/** Options of {@link nestedDissection}. */
+export interface DissectionOptions {
+  /** Orders one leaf piece (a graph with sorted adjacency); returns new → old. */
+  orderLeaf: (g: Graph) => Int32Array;
+  seed?: number;
+  /** Vertex weights (supervariable sizes); all ones by default. */
+  vertexWeights?: Int32Array;
+  /** Pieces with at most this many vertices are leaves. */
+  leafSize?: number;
+  coordinates?: Coordinates;
+  coordinateMode?: CoordinateMode;
+  bisect?: Partial<BisectOptions>;
+  signal?: AbortSignal;
+  onProgress?: (fraction: number) => void;
+}
+
+interface Piece {
+  graph: WGraph;
+  ids: Int32Array;
+  lo: number;
+  parent: number;
+  leaf: boolean;
+}
+
+interface State {
+  perm: Int32Array;
+  first: number[];
+  sepFirst: number[];
+  end: number[];
+  parent: number[];
+  stack: Piece[];
+  placed: number;
+  rng: Rng;
+  o: DissectionOptions;
+  leafSize: number;
+  bisect: BisectOptions;
+  work: FmWork;
+}
+
+/** Orders `graph` by nested dissection; deterministic for a given seed. */
+export function nestedDissection(graph: Graph, o: DissectionOptions): OrderingResult {
+  const n = graph.n;
+  const s: State = {
+    perm: new Int32Array(n), first: [], sepFirst: [], end: [], parent: [], stack: [], placed: 0,
+    rng: new Rng(o.seed ?? 1), o, leafSize: o.leafSize ?? 128, bisect: { ...defaultBisectOptions, ...o.bisect }, work: fmWork(n),
+  };
+  const g = weightedGraph(graph, o.vertexWeights);
+  const ids = new Int32Array(n);
+  for (let v = 0; v < n; v++) ids[v] = v;
+  pushComponents(s, g, ids, null, 0, 0, -1);
+  while (s.stack.length > 0) {
+    if (o.signal?.aborted) throw new AbortedError("nested dissection aborted");
+    processPiece(s, s.stack.pop()!);
+    o.onProgress?.(n === 0 ? 1 : s.placed / n);
+  }
+  return { permutation: s.perm, separatorTree: buildTree(s) };
+}
+
+function addNode(s: State, first: number, sepFirst: number, end: number, parent: number): number {
+  s.first.push(first); s.sepFirst.push(sepFirst); s.end.push(end); s.parent.push(parent);
+  return s.first.length - 1;
+}
+
+function processPiece(s: State, piece: Piece): void {
+  const g = piece.graph;
+  if (piece.leaf || g.n <= s.leafSize) {
+    placeLeaf(s, piece);
+    return;
+  }
+  const label = findSeparator(s, piece);
+  let sepCount = 0;
+  for (let v = 0; v < g.n; v++) if (label[v] === 2) sepCount++;
+  if (sepCount === 0 || sepCount === g.n) {
+    placeLeaf(s, piece);
+    return;
+  }
+  const hi = piece.lo + g.n;
+  const node = addNode(s, piece.lo, hi - sepCount, hi, piece.parent);
+  let k = hi - sepCount;
+  for (let v = 0; v < g.n; v++) if (label[v] === 2) s.perm[k++] = piece.ids[v];
+  s.placed += sepCount;
+  const mid = pushComponents(s, g, piece.ids, label, 0, piece.lo, node);
+  pushComponents(s, g, piece.ids, label, 1, mid, node);
+}
+
+function findSeparator(s: State, piece: Piece): Int8Array {
+  const { graph: g, ids } = piece;
+  const c = s.o.coordinates;
+  const mode = s.o.coordinateMode ?? "refine";
+  if (c === undefined || mode === "ignore") return multilevelSeparator(g, s.rng, s.bisect, s.work);
+  const cut = coordinateCut(g, ids, c);
+  if (mode === "plain") return separate(g, { label: cut, weight: [0, 0], cut: 0 }, { ...s.bisect, separatorRefinement: "none" }, s.work);
+  const byCoordinates = refineGiven(g, cut, s.bisect, s.work);
+  const multilevel = multilevelBisection(g, s.rng, s.bisect, s.work);
+  return separate(g, multilevel.cut < byCoordinates.cut ? multilevel : byCoordinates, s.bisect, s.work);
+}
+
+/**
+ * Pushes the connected components of the vertices labelled `which` (all when
+ * label is null) as pieces starting at position lo; small components are
+ * batched into leaf pieces. Returns the position after the last one.
+ */
+function pushComponents(s: State, g: WGraph, ids: Int32Array, label: Int8Array | null, which: number, lo: number, parent: number): number {
+  const { order, starts } = components(g, label, which);
+  const localOf = new Int32Array(g.n).fill(-1);
+  let batchStart = -1;
+  let pos = lo;
+  const emit = (from: number, to: number, leaf: boolean): void => {
+    const verts = order.slice(from, to);
+    const sub = inducedSubgraph(g, verts, localOf);
+    const subIds = new Int32Array(verts.length);
+    for (let i = 0; i < verts.length; i++) subIds[i] = ids[verts[i]];
+    s.stack.push({ graph: sub, ids: subIds, lo: pos, parent, leaf });
+    pos += verts.length;
+  };
+  for (let c = 0; c + 1 < starts.length; c++) {
+    const size = starts[c + 1] - starts[c];
+    if (size > s.leafSize) {
+      if (batchStart >= 0) { emit(batchStart, starts[c], true); batchStart = -1; }
+      emit(starts[c], starts[c + 1], false);
+      continue;
+    }
+    if (batchStart < 0) batchStart = starts[c];
+    if (starts[c + 1] - batchStart >= s.leafSize) { emit(batchStart, starts[c + 1], true); batchStart = -1; }
+  }
+  if (batchStart >= 0) emit(batchStart, starts[starts.length - 1], true);
+  return pos;
+}
+
+/** Orders a leaf piece with the leaf ordering and records a leaf node. */
+function placeLeaf(s: State, piece: Piece): void {
+  const g = piece.graph;
+  const perm = s.o.orderLeaf(sortedGraph(g));
+  for (let i = 0; i < g.n; i++) s.perm[piece.lo + i] = piece.ids[perm[i]];
+  s.placed += g.n;
+  addNode(s, piece.lo, piece.lo + g.n, piece.lo + g.n, piece.parent);
+}
+
+/** The plain graph of a piece with each adjacency list sorted ascending. */
+function sortedGraph(g: WGraph): Graph {
+  const neighbours = g.adj.slice();
+  for (let v = 0; v < g.n; v++) neighbours.subarray(g.xadj[v], g.xadj[v + 1]).sort();
+  return { n: g.n, offsets: g.xadj, neighbours };
+}
+
+/** Nodes were created parents first; reversing lists children before parents. */
+function buildTree(s: State): SeparatorTree {
+  const count = s.first.length;
+  const first = new Int32Array(count);
+  const separatorFirst = new Int32Array(count);
+  const end = new Int32Array(count);
+  const parent = new Int32Array(count);
+  for (let i = 0; i < count; i++) {
+    const j = count - 1 - i;
+    first[j] = s.first[i];
+    separatorFirst[j] = s.sepFirst[i];
+    end[j] = s.end[i];
+    parent[j] = s.parent[i] < 0 ? -1 : count - 1 - s.parent[i];
+  }
+  return { count, first, separatorFirst, end, parent };
+}

@@ -1,0 +1,121 @@
+/**
+ * One multilevel vertex bisection (Hendrickson & Leland 1995; Karypis & Kumar
+ * 1998, SIAM J. Sci. Comput. 20(1)): coarsen by heavy-edge matching, bisect the
+ * coarsest graph by greedy growing from several seeds, project back level by
+ * level with FM refinement, then turn the edge cut into a vertex separator.
+ */
+import { initialBisection } from "./bisect.js";
+import { coarsen } from "./coarsen.js";
+import { evaluate, refineBisection, type Bisection, type FmWork } from "./refine.js";
+import type { Rng } from "./rng.js";
+import { vertexSeparatorFromCut } from "./separator.js";
+import { refineSeparator, separatorState } from "./separator-refine.js";
+import type { WGraph } from "./wgraph.js";
+
+/** Tuning of one bisection. */
+export interface BisectOptions {
+  /** Stop coarsening at this many vertices. */
+  coarsestSize: number;
+  /** Greedy-growing tries on the coarsest graph. */
+  tries: number;
+  /** Allowed excess of the heavier part over half the weight (0.1 = 10 %). */
+  imbalance: number;
+  /** FM passes per level. */
+  passes: number;
+  /**
+   * Where the vertex separator is formed and refined: "finest" = edge FM on
+   * every level, cover and separator FM on the finest; "all" = cover on the
+   * coarsest graph, separator FM on every level; "none" = cover only;
+   * "both" = "all" and "finest" on pieces of at least `bothAbove` vertices,
+   * keeping the lighter separator ("all" on smaller pieces).
+   */
+  separatorRefinement: "finest" | "all" | "none" | "both";
+  bothAbove: number;
+}
+
+export const defaultBisectOptions: BisectOptions = {
+  coarsestSize: 100, tries: 6, imbalance: 0.1, passes: 8, separatorRefinement: "both", bothAbove: 1000,
+};
+
+/** Largest admissible part weight for graph g. */
+export function partBound(g: WGraph, imbalance: number): number {
+  let maxV = 0;
+  for (let v = 0; v < g.n; v++) if (g.vwgt[v] > maxV) maxV = g.vwgt[v];
+  return Math.max(Math.ceil((g.totalWeight * (1 + imbalance)) / 2), Math.ceil((g.totalWeight + maxV) / 2));
+}
+
+/** Greedy-growing tries: all of them on large pieces, fewer on the many small ones. */
+function triesFor(g: WGraph, o: BisectOptions): number {
+  return g.n >= 20000 ? o.tries : g.n >= 2000 ? Math.min(o.tries, 3) : Math.min(o.tries, 2);
+}
+
+/** Multilevel edge bisection of g, refined at every level. */
+export function multilevelBisection(g: WGraph, rng: Rng, o: BisectOptions, work: FmWork): Bisection {
+  const levels = coarsen(g, rng, o.coarsestSize);
+  const coarsest = levels.length > 0 ? levels[levels.length - 1].graph : g;
+  let b = initialBisection(coarsest, rng, triesFor(g, o), partBound(coarsest, o.imbalance), work);
+  for (let i = levels.length - 1; i >= 0; i--) {
+    const fine = i > 0 ? levels[i - 1].graph : g;
+    const coarseOf = levels[i].coarseOf;
+    const label = new Int8Array(fine.n);
+    for (let v = 0; v < fine.n; v++) label[v] = b.label[coarseOf[v]];
+    b = evaluate(fine, label, work);
+    refineBisection(fine, b, partBound(fine, o.imbalance), o.passes, work);
+  }
+  return b;
+}
+
+/** Refines a given 2-way labelling of g (for example a coordinate cut) with FM at one level. */
+export function refineGiven(g: WGraph, label: Int8Array, o: BisectOptions, work: FmWork): Bisection {
+  const b = evaluate(g, label, work);
+  refineBisection(g, b, partBound(g, o.imbalance), o.passes, work);
+  return b;
+}
+
+/** Vertex separator of g from an edge bisection: labels 0 / 1 for the parts, 2 for the separator. */
+export function separate(g: WGraph, b: Bisection, o: BisectOptions, work: FmWork): Int8Array {
+  const label = b.label;
+  vertexSeparatorFromCut(g, label);
+  if (o.separatorRefinement !== "none") {
+    refineSeparator(g, separatorState(g, label), partBound(g, o.imbalance), o.passes, work);
+  }
+  return label;
+}
+
+/** Multilevel vertex separator of g (labels 0 / 1 / 2). */
+export function multilevelSeparator(g: WGraph, rng: Rng, o: BisectOptions, work: FmWork): Int8Array {
+  if (o.separatorRefinement === "both") {
+    const a = separatorByLevels(g, rng, o, work);
+    if (g.n < o.bothAbove) return a;
+    const b = separate(g, multilevelBisection(g, rng, o, work), o, work);
+    return lighter(g, a, b);
+  }
+  if (o.separatorRefinement === "all") return separatorByLevels(g, rng, o, work);
+  return separate(g, multilevelBisection(g, rng, o, work), o, work);
+}
+
+/** The labelling with the lighter separator; ties go to the better balance. */
+function lighter(g: WGraph, a: Int8Array, b: Int8Array): Int8Array {
+  const wa = [0, 0, 0];
+  const wb = [0, 0, 0];
+  for (let v = 0; v < g.n; v++) { wa[a[v]] += g.vwgt[v]; wb[b[v]] += g.vwgt[v]; }
+  if (wa[2] !== wb[2]) return wa[2] < wb[2] ? a : b;
+  return Math.abs(wa[0] - wa[1]) <= Math.abs(wb[0] - wb[1]) ? a : b;
+}
+
+/** Cover on the coarsest graph, then separator FM on every level while projecting back. */
+function separatorByLevels(g: WGraph, rng: Rng, o: BisectOptions, work: FmWork): Int8Array {
+  const levels = coarsen(g, rng, o.coarsestSize);
+  const coarsest = levels.length > 0 ? levels[levels.length - 1].graph : g;
+  const first = initialBisection(coarsest, rng, triesFor(g, o), partBound(coarsest, o.imbalance), work);
+  let label = separate(coarsest, first, o, work);
+  for (let i = levels.length - 1; i >= 0; i--) {
+    const fine = i > 0 ? levels[i - 1].graph : g;
+    const coarseOf = levels[i].coarseOf;
+    const fineLabel = new Int8Array(fine.n);
+    for (let v = 0; v < fine.n; v++) fineLabel[v] = label[coarseOf[v]];
+    refineSeparator(fine, separatorState(fine, fineLabel), partBound(fine, o.imbalance), o.passes, work);
+    label = fineLabel;
+  }
+  return label;
+}

@@ -1,0 +1,162 @@
+/**
+ * Two-way edge-cut refinement by Fiduccia–Mattheyses passes (Fiduccia &
+ * Mattheyses 1982, "A linear-time heuristic for improving network partitions",
+ * 19th Design Automation Conf.): move boundary vertices one at a time in order
+ * of cut gain, each at most once per pass, accepting temporary losses, under a
+ * balance bound; then roll back to the best state seen. Internal/external
+ * degrees and the boundary list are kept up to date, so a pass costs time in
+ * proportion to the boundary, not the graph.
+ */
+import { MaxHeap } from "./heap.js";
+import type { WGraph } from "./wgraph.js";
+
+/** A 2-way partition: label[v] ∈ {0, 1}. */
+export interface Bisection {
+  label: Int8Array;
+  weight: [number, number];
+  cut: number;
+}
+
+/** Workspace for graphs of up to `capacity` vertices, reused across levels and pieces. */
+export interface FmWork {
+  heaps: [MaxHeap, MaxHeap];
+  moved: Uint8Array;
+  moves: Int32Array;
+  /** Internal and external edge weight of each vertex. */
+  id: Int32Array;
+  ed: Int32Array;
+  /** Boundary vertices (ed > 0) and their positions in the list (-1 when absent). */
+  boundary: Int32Array;
+  boundaryPos: Int32Array;
+  boundaryCount: number;
+}
+
+export function fmWork(capacity: number): FmWork {
+  return {
+    heaps: [new MaxHeap(capacity), new MaxHeap(capacity)], moved: new Uint8Array(capacity),
+    moves: new Int32Array(capacity), id: new Int32Array(capacity), ed: new Int32Array(capacity),
+    boundary: new Int32Array(capacity), boundaryPos: new Int32Array(capacity).fill(-1), boundaryCount: 0,
+  };
+}
+
+/** Computes part weights, cut, degrees and boundary of a labelling; O(edges). */
+export function evaluate(g: WGraph, label: Int8Array, w: FmWork): Bisection {
+  const { xadj, adj, ewgt, vwgt } = g;
+  for (let i = 0; i < w.boundaryCount; i++) w.boundaryPos[w.boundary[i]] = -1;
+  w.boundaryCount = 0;
+  let cut = 0;
+  const weight: [number, number] = [0, 0];
+  for (let v = 0; v < g.n; v++) {
+    const s = label[v];
+    weight[s] += vwgt[v];
+    let inside = 0;
+    let outside = 0;
+    for (let p = xadj[v], pe = xadj[v + 1]; p < pe; p++) {
+      if (label[adj[p]] === s) inside += ewgt[p]; else outside += ewgt[p];
+    }
+    w.id[v] = inside;
+    w.ed[v] = outside;
+    cut += outside;
+    if (outside > 0) addBoundary(w, v);
+  }
+  return { label, weight, cut: cut / 2 };
+}
+
+function addBoundary(w: FmWork, v: number): void {
+  if (w.boundaryPos[v] >= 0) return;
+  w.boundaryPos[v] = w.boundaryCount;
+  w.boundary[w.boundaryCount++] = v;
+}
+
+function dropBoundary(w: FmWork, v: number): void {
+  const i = w.boundaryPos[v];
+  if (i < 0) return;
+  const last = w.boundary[--w.boundaryCount];
+  w.boundary[i] = last;
+  w.boundaryPos[last] = i;
+  w.boundaryPos[v] = -1;
+}
+
+/** Weight by which the heavier part exceeds the bound (0 when balanced). */
+export function excess(b: Bisection, maxPart: number): number {
+  return Math.max(0, b.weight[0] - maxPart, b.weight[1] - maxPart);
+}
+
+/** Runs up to `passes` FM passes on b (freshly evaluated with w) in place. */
+export function refineBisection(g: WGraph, b: Bisection, maxPart: number, passes: number, w: FmWork): void {
+  for (let pass = 0; pass < passes; pass++) {
+    const before = b.cut;
+    const beforeExcess = excess(b, maxPart);
+    fmPass(g, b, maxPart, w);
+    if (b.cut >= before && excess(b, maxPart) >= beforeExcess) break;
+  }
+}
+
+function fmPass(g: WGraph, b: Bisection, maxPart: number, w: FmWork): void {
+  const { heaps, moves } = w;
+  for (let i = 0; i < w.boundaryCount; i++) {
+    const v = w.boundary[i];
+    heaps[b.label[v]].push(v, w.ed[v] - w.id[v]);
+  }
+  const limit = Math.max(15, Math.min(150, g.n >> 6));
+  let count = 0;
+  let bestCount = 0;
+  let bestCut = b.cut;
+  let bestExcess = excess(b, maxPart);
+  let sinceBest = 0;
+  while (sinceBest < limit) {
+    const from = pickSide(g, b, maxPart, heaps);
+    if (from < 0) break;
+    const v = heaps[from].pop();
+    w.moved[v] = 1;
+    moveVertex(g, b, v, w, true);
+    moves[count++] = v;
+    const ex = excess(b, maxPart);
+    if (ex < bestExcess || (ex === bestExcess && b.cut < bestCut)) {
+      bestExcess = ex; bestCut = b.cut; bestCount = count; sinceBest = 0;
+    } else sinceBest++;
+  }
+  heaps[0].clear();
+  heaps[1].clear();
+  for (let i = count - 1; i >= bestCount; i--) moveVertex(g, b, moves[i], w, false);
+  for (let i = 0; i < count; i++) w.moved[moves[i]] = 0;
+}
+
+/** Side to move from: forced from an overweight side, else the better admissible gain. */
+function pickSide(g: WGraph, b: Bisection, maxPart: number, heaps: [MaxHeap, MaxHeap]): number {
+  let best = -1;
+  let bestGain = -Infinity;
+  for (let s = 0; s < 2; s++) {
+    if (heaps[s].size === 0) continue;
+    const v = heaps[s].top();
+    const overweight = b.weight[s] > maxPart;
+    if (!overweight && b.weight[1 - s] + g.vwgt[v] > maxPart) continue;
+    const gain = heaps[s].topKey() + (overweight ? 1 << 29 : 0);
+    if (gain > bestGain || (gain === bestGain && b.weight[s] > b.weight[best])) { best = s; bestGain = gain; }
+  }
+  return best;
+}
+
+/** Moves v to the other part, updating degrees, boundary and (when `queue`) the heaps. */
+function moveVertex(g: WGraph, b: Bisection, v: number, w: FmWork, queue: boolean): void {
+  const { xadj, adj, ewgt } = g;
+  const { id, ed, heaps, moved } = w;
+  const label = b.label;
+  const s = label[v];
+  b.cut -= ed[v] - id[v];
+  label[v] = 1 - s;
+  b.weight[s] -= g.vwgt[v];
+  b.weight[1 - s] += g.vwgt[v];
+  const t = id[v]; id[v] = ed[v]; ed[v] = t;
+  if (ed[v] > 0) addBoundary(w, v); else dropBoundary(w, v);
+  for (let p = xadj[v], pe = xadj[v + 1]; p < pe; p++) {
+    const u = adj[p];
+    const e = ewgt[p];
+    if (label[u] === s) { id[u] -= e; ed[u] += e; } else { id[u] += e; ed[u] -= e; }
+    if (ed[u] > 0) addBoundary(w, u); else dropBoundary(w, u);
+    if (!queue || moved[u]) continue;
+    const h = heaps[label[u]];
+    if (h.has(u)) h.update(u, ed[u] - id[u]);
+    else if (ed[u] > 0) h.push(u, ed[u] - id[u]);
+  }
+}

@@ -1,0 +1,137 @@
+/**
+ * Vertex-separator refinement by Fiduccia–Mattheyses passes (Ashcraft & Liu
+ * 1994, "A partition improvement algorithm for generalized nested dissection",
+ * Boeing Computer Services report BCSTECH-94-020; Hendrickson & Rothberg 1998,
+ * "Improving the run time and quality of nested dissection ordering", SIAM J.
+ * Sci. Comput. 20(2)). A move takes separator vertex v into part t and pulls
+ * its neighbours in the other part into the separator; its gain is the drop in
+ * separator weight. Moves run in order of gain under a balance bound, each
+ * vertex is locked once moved, and the pass rolls back to its best state.
+ */
+import type { FmWork } from "./refine.js";
+import type { WGraph } from "./wgraph.js";
+
+/** Separator state: label[v] ∈ {0, 1, 2 (separator)} and the three weights. */
+export interface SeparatorState {
+  label: Int8Array;
+  weight: [number, number, number];
+}
+
+export function separatorState(g: WGraph, label: Int8Array): SeparatorState {
+  const weight: [number, number, number] = [0, 0, 0];
+  for (let v = 0; v < g.n; v++) weight[label[v]] += g.vwgt[v];
+  return { label, weight };
+}
+
+/** Gain of moving separator vertex v into part t. */
+function gainTo(g: WGraph, label: Int8Array, v: number, t: number): number {
+  const other = 1 - t;
+  let gain = g.vwgt[v];
+  for (let p = g.xadj[v], pe = g.xadj[v + 1]; p < pe; p++) if (label[g.adj[p]] === other) gain -= g.vwgt[g.adj[p]];
+  return gain;
+}
+
+/** Runs up to `passes` separator-refinement passes in place. */
+export function refineSeparator(g: WGraph, st: SeparatorState, maxPart: number, passes: number, w: FmWork): void {
+  const log: number[] = [];
+  for (let pass = 0; pass < passes; pass++) {
+    const before = st.weight[2];
+    const beforeExcess = excessOf(st, maxPart);
+    separatorPass(g, st, maxPart, w, log);
+    if (st.weight[2] >= before && excessOf(st, maxPart) >= beforeExcess) break;
+  }
+}
+
+function excessOf(st: SeparatorState, maxPart: number): number {
+  return Math.max(0, st.weight[0] - maxPart, st.weight[1] - maxPart);
+}
+
+function better(st: SeparatorState, maxPart: number, bestEx: number, bestSep: number, bestImb: number): boolean {
+  const ex = excessOf(st, maxPart);
+  if (ex !== bestEx) return ex < bestEx;
+  if (st.weight[2] !== bestSep) return st.weight[2] < bestSep;
+  return Math.abs(st.weight[0] - st.weight[1]) < bestImb;
+}
+
+function separatorPass(g: WGraph, st: SeparatorState, maxPart: number, w: FmWork, log: number[]): void {
+  const { heaps, moved } = w;
+  const label = st.label;
+  for (let v = 0; v < g.n; v++) {
+    if (label[v] === 2) { heaps[0].push(v, gainTo(g, label, v, 0)); heaps[1].push(v, gainTo(g, label, v, 1)); }
+  }
+  log.length = 0;
+  const limit = Math.max(15, Math.min(150, g.n >> 6));
+  let bestEx = excessOf(st, maxPart);
+  let bestSep = st.weight[2];
+  let bestImb = Math.abs(st.weight[0] - st.weight[1]);
+  let bestLen = 0;
+  let sinceBest = 0;
+  while (sinceBest < limit) {
+    const t = pickTarget(g, st, maxPart, heaps);
+    if (t < 0) break;
+    const v = heaps[t].top();
+    moveInto(g, st, v, t, w, log);
+    if (better(st, maxPart, bestEx, bestSep, bestImb)) {
+      bestEx = excessOf(st, maxPart); bestSep = st.weight[2]; bestImb = Math.abs(st.weight[0] - st.weight[1]);
+      bestLen = log.length; sinceBest = 0;
+    } else sinceBest++;
+  }
+  heaps[0].clear();
+  heaps[1].clear();
+  for (let i = log.length - 2; i >= bestLen; i -= 2) {
+    const v = log[i];
+    st.weight[label[v]] -= g.vwgt[v];
+    label[v] = log[i + 1];
+    st.weight[label[v]] += g.vwgt[v];
+  }
+  for (let i = 0; i < log.length; i += 2) moved[log[i]] = 0;
+}
+
+/** Part to move into: the admissible top move with the larger gain, ties to the lighter part. */
+function pickTarget(g: WGraph, st: SeparatorState, maxPart: number, heaps: FmWork["heaps"]): number {
+  let best = -1;
+  let bestKey = -Infinity;
+  for (let t = 0; t < 2; t++) {
+    if (heaps[t].size === 0) continue;
+    const v = heaps[t].top();
+    if (st.weight[t] + g.vwgt[v] > maxPart && st.weight[t] >= st.weight[1 - t]) continue;
+    const key = heaps[t].topKey();
+    if (key > bestKey || (key === bestKey && st.weight[t] < st.weight[best])) { best = t; bestKey = key; }
+  }
+  return best;
+}
+
+/** Moves v from the separator into part t; neighbours in the other part join the separator. */
+function moveInto(g: WGraph, st: SeparatorState, v: number, t: number, w: FmWork, log: number[]): void {
+  const { xadj, adj, vwgt } = g;
+  const { heaps, moved } = w;
+  const label = st.label;
+  const other = 1 - t;
+  heaps[0].remove(v);
+  heaps[1].remove(v);
+  moved[v] = 1;
+  log.push(v, 2);
+  label[v] = t;
+  st.weight[2] -= vwgt[v];
+  st.weight[t] += vwgt[v];
+  for (let p = xadj[v], pe = xadj[v + 1]; p < pe; p++) {
+    const u = adj[p];
+    if (label[u] === 2) {
+      if (heaps[other].has(u)) heaps[other].update(u, heaps[other].key[u] - vwgt[v]);
+      continue;
+    }
+    if (label[u] !== other) continue;
+    log.push(u, other);
+    label[u] = 2;
+    st.weight[other] -= vwgt[u];
+    st.weight[2] += vwgt[u];
+    for (let q = xadj[u], qe = xadj[u + 1]; q < qe; q++) {
+      const x = adj[q];
+      if (label[x] === 2 && heaps[t].has(x)) heaps[t].update(x, heaps[t].key[x] + vwgt[u]);
+    }
+    if (!moved[u]) {
+      heaps[0].push(u, gainTo(g, label, u, 0));
+      heaps[1].push(u, gainTo(g, label, u, 1));
+    }
+  }
+}

@@ -1,0 +1,89 @@
+/**
+ * Weighted graphs for the multilevel dissection: vertex weights count original
+ * vertices (supervariables, coarse vertices), edge weights count the fine edges
+ * a coarse edge stands for (Hendrickson & Leland 1995, "A multilevel algorithm
+ * for partitioning graphs", Supercomputing '95). Also induced subgraphs and
+ * connected components, both linear in the size of the piece.
+ */
+import type { Graph } from "../../graph/types.js";
+
+/** Vertex v's neighbours are adj[xadj[v] .. xadj[v+1]) with edge weights ewgt at the same positions. */
+export interface WGraph {
+  readonly n: number;
+  readonly xadj: Int32Array;
+  readonly adj: Int32Array;
+  readonly ewgt: Int32Array;
+  readonly vwgt: Int32Array;
+  readonly totalWeight: number;
+}
+
+/** Wraps an unweighted graph; `vertexWeights` defaults to all ones. */
+export function weightedGraph(g: Graph, vertexWeights?: Int32Array): WGraph {
+  const vwgt = vertexWeights ?? new Int32Array(g.n).fill(1);
+  let total = 0;
+  for (let v = 0; v < g.n; v++) total += vwgt[v];
+  const ewgt = new Int32Array(g.neighbours.length).fill(1);
+  return { n: g.n, xadj: g.offsets, adj: g.neighbours, ewgt, vwgt, totalWeight: total };
+}
+
+/**
+ * The subgraph induced by `vertices` (local ids of g). `localOf` is a length-g.n
+ * workspace that must hold -1 everywhere; it is restored before returning.
+ */
+export function inducedSubgraph(g: WGraph, vertices: Int32Array, localOf: Int32Array): WGraph {
+  const { xadj: gx, adj: ga, ewgt: ge, vwgt: gv } = g;
+  const m = vertices.length;
+  for (let i = 0; i < m; i++) localOf[vertices[i]] = i;
+  let count = 0;
+  for (let i = 0; i < m; i++) {
+    const v = vertices[i];
+    for (let p = gx[v], pe = gx[v + 1]; p < pe; p++) if (localOf[ga[p]] >= 0) count++;
+  }
+  const xadj = new Int32Array(m + 1);
+  const adj = new Int32Array(count);
+  const ewgt = new Int32Array(count);
+  const vwgt = new Int32Array(m);
+  let k = 0;
+  let total = 0;
+  for (let i = 0; i < m; i++) {
+    const v = vertices[i];
+    vwgt[i] = gv[v];
+    total += gv[v];
+    for (let p = gx[v], pe = gx[v + 1]; p < pe; p++) {
+      const u = localOf[ga[p]];
+      if (u >= 0) { adj[k] = u; ewgt[k++] = ge[p]; }
+    }
+    xadj[i + 1] = k;
+  }
+  for (let i = 0; i < m; i++) localOf[vertices[i]] = -1;
+  return { n: m, xadj, adj, ewgt, vwgt, totalWeight: total };
+}
+
+/**
+ * Connected components of the vertices whose `label` equals `which` (all
+ * vertices when which < 0). Returns the vertices grouped by component and the
+ * component offsets. Breadth-first, no recursion.
+ */
+export function components(g: WGraph, label: Int8Array | null, which: number): { order: Int32Array; starts: number[] } {
+  const n = g.n;
+  const seen = new Uint8Array(n);
+  const order = new Int32Array(n);
+  const starts: number[] = [];
+  let tail = 0;
+  for (let s = 0; s < n; s++) {
+    if (seen[s] || (label !== null && label[s] !== which)) continue;
+    starts.push(tail);
+    let head = tail;
+    order[tail++] = s;
+    seen[s] = 1;
+    while (head < tail) {
+      const v = order[head++];
+      for (let p = g.xadj[v]; p < g.xadj[v + 1]; p++) {
+        const u = g.adj[p];
+        if (!seen[u] && (label === null || label[u] === which)) { seen[u] = 1; order[tail++] = u; }
+      }
+    }
+  }
+  starts.push(tail);
+  return { order: order.subarray(0, tail), starts };
+}
