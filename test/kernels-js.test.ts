@@ -252,3 +252,18 @@ describe("trsm: B := B·L⁻ᵀ", () => {
     );
   });
 });
+
+describe("store", () => {
+  it("reserve grows the store, view returns it, impossible sizes are a CapacityError", async () => {
+    const { CapacityError } = await import("../src/errors.js");
+    const K = jsKernels();
+    expect(K.name).toBe("js");
+    const S = K.reserve(100);
+    expect(S.length).toBe(100);
+    expect(K.view()).toBe(S);
+    expect(K.reserve(50)).toBe(S); // large enough already: kept
+    expect(K.reserve(200).length).toBe(200);
+    expect(() => K.reserve(2 ** 40)).toThrow(CapacityError);
+    expect(() => K.reserve(-1)).toThrow(CapacityError);
+  });
+});
