@@ -8,16 +8,18 @@
  * the 128-row slab and the 256-deep k slice. Also: the embedded binary equals
  * the compiled source, and the memory growth / capacity paths.
  */
+import { spawnSync } from "node:child_process";
 import { readFileSync } from "node:fs";
 import fc from "fast-check";
 import { CholeskyDecomposition, Matrix } from "ml-matrix";
 import wabtInit from "wabt";
 import { describe, expect, it } from "vitest";
 import { CapacityError, SeptumError } from "../src/errors.js";
-import { getKernels } from "../src/kernels/index.js";
+import { autoChoice, getKernels } from "../src/kernels/index.js";
 import { jsKernels } from "../src/kernels/js/index.js";
 import type { DenseKernels } from "../src/kernels/types.js";
-import { STORE_BASE_BYTES, WASM32_MAX_PAGES, wasmKernelBytes, wasmKernels } from "../src/kernels/wasm/index.js";
+import { STORE_BASE_BYTES, WASM32_MAX_PAGES, type WasmKernels, wasmKernelBytes, wasmKernels } from "../src/kernels/wasm/index.js";
+import { TILE_MULADDS, compileKernels, fusedText } from "../scripts/wasm-source.mjs";
 
 const EPS = 2 ** -52;
 
@@ -43,16 +45,63 @@ const edge = fc.integer({ min: 1, max: 17 });
 const size = fc.oneof(edge, fc.integer({ min: 18, max: 70 }));
 const pad = fc.integer({ min: 0, max: 5 });
 
-describe("embedded binary", () => {
-  it("is byte-identical to kernels.wat compiled with wabt (same options as scripts/build-wasm.mjs)", async () => {
+describe("embedded binaries", () => {
+  it("are byte-identical to kernels.wat compiled with wabt (plain SIMD and the fused-multiply-add build)", async () => {
     const wabt = await wabtInit();
     const text = readFileSync(new URL("../src/kernels/wasm/kernels.wat", import.meta.url), "utf8");
-    const mod = wabt.parseWat("kernels.wat", text, { simd: true });
-    mod.validate();
-    const { buffer } = mod.toBinary({});
-    mod.destroy();
-    expect(buffer.length).toBeGreaterThan(0);
-    expect(Buffer.from(wasmKernelBytes()).equals(Buffer.from(buffer))).toBe(true);
+    const { simd, fma } = compileKernels(wabt, text);
+    expect(simd.length).toBeGreaterThan(0);
+    expect(Buffer.from(wasmKernelBytes("simd")).equals(Buffer.from(simd))).toBe(true);
+    expect(Buffer.from(wasmKernelBytes("fma")).equals(Buffer.from(fma))).toBe(true);
+  });
+
+  it("the fused build differs from the plain one only in the tile's eight multiply-adds", () => {
+    const text = readFileSync(new URL("../src/kernels/wasm/kernels.wat", import.meta.url), "utf8");
+    const fused = fusedText(text);
+    expect(fused.split("f64x2.relaxed_madd").length - 1).toBe(TILE_MULADDS);
+    expect(fused.replace(/\(f64x2\.relaxed_madd \(local\.get (\$a\d)\) \(local\.get \$bb\) \(local\.get (\$c\d\d)\)\)/g,
+      "(f64x2.add (local.get $2) (f64x2.mul (local.get $1) (local.get $bb)))")).toBe(text);
+  });
+
+  it("the fused build computes C − A·Bᵀ and a Cholesky correctly where relaxed SIMD is on (child node process)", () => {
+    // Node 20 validates relaxed SIMD only behind a V8 flag, so run the fma binary in a child with it.
+    const b64 = Buffer.from(wasmKernelBytes("fma")).toString("base64");
+    const code = `
+      const bytes = Buffer.from(${JSON.stringify(b64)}, "base64");
+      if (!WebAssembly.validate(bytes)) { console.log("invalid"); process.exit(0); }
+      const memory = new WebAssembly.Memory({ initial: ${STORE_BASE_BYTES / 65536 + 4} });
+      const x = new WebAssembly.Instance(new WebAssembly.Module(bytes), { env: { memory } }).exports;
+      const S = new Float64Array(memory.buffer, ${STORE_BASE_BYTES});
+      const m = 13, n = 9, k = 37, base = ${STORE_BASE_BYTES};
+      let s = 7; const rnd = () => { s ^= s << 13; s ^= s >>> 17; s ^= s << 5; return (s >>> 0) / 2 ** 32 - 0.5; };
+      for (let i = 0; i < m * k + n * k + m * n; i++) S[i] = rnd();
+      const a = 0, b = m * k, c = b + n * k, C0 = S.slice(c, c + m * n);
+      x.gemm(m, n, k, base + 8 * a, m, base + 8 * b, n, base + 8 * c, m, 0);
+      let err = 0;
+      for (let j = 0; j < n; j++) for (let i = 0; i < m; i++) {
+        let t = C0[i + j * m];
+        for (let p = 0; p < k; p++) t -= S[a + i + p * m] * S[b + j + p * n];
+        err = Math.max(err, Math.abs(t - S[c + i + j * m]));
+      }
+      const N = 70, d = c + m * n;  // SPD: N on the diagonal, entries in [-0.5, 0.5) below
+      for (let j = 0; j < N; j++) for (let i = j; i < N; i++) S[d + i + j * N] = i === j ? N : rnd();
+      const A0 = S.slice(d, d + N * N);
+      const info = x.potrf(N, base + 8 * d, N);
+      let res = 0;
+      for (let j = 0; j < N; j++) for (let i = j; i < N; i++) {
+        let t = 0;
+        for (let p = 0; p <= j; p++) t += S[d + i + p * N] * S[d + j + p * N];
+        res = Math.max(res, Math.abs(t - A0[i + j * N]));
+      }
+      console.log(JSON.stringify({ err, info, res }));`;
+    const out = spawnSync(process.execPath, ["--experimental-wasm-relaxed-simd", "-e", code], { encoding: "utf8" });
+    expect(out.status).toBe(0);
+    const r = JSON.parse(out.stdout) as { err: number; info: number; res: number };
+    // dot-product bound 4·(k+1)·eps for entries in [-0.5, 0.5) (Higham §3.1, from memory);
+    // Cholesky backward error c·n·eps·‖A‖ (Higham §10.1, from memory)
+    expect(r.err).toBeLessThanOrEqual(4 * 38 * EPS);
+    expect(r.info).toBe(-1);
+    expect(r.res).toBeLessThanOrEqual(4 * 70 * EPS * 70);
   });
 });
 
@@ -383,6 +432,14 @@ describe("kernel selection", () => {
     expect(getKernels("auto").name).toBe("wasm");
     expect(getKernels("auto", { validate: () => false }).name).toBe("js");
     expect(getKernels("auto", { validate: () => { throw new Error("no wasm"); } }).name).toBe("js");
+    // a runtime with SIMD but without relaxed SIMD gets the plain build, one with both the fused build
+    const fma = wasmKernelBytes("fma");
+    expect(autoChoice((b) => b !== fma)).toBe("simd");
+    expect(autoChoice(() => true)).toBe("fma");
+    expect(autoChoice(() => false)).toBe("js");
+    // this Node validates relaxed SIMD only behind a flag: auto runs the plain SIMD build here
+    const here = getKernels("auto") as WasmKernels;
+    expect(here.variant).toBe(WebAssembly.validate(fma) ? "fma" : "simd");
     expect(getKernels("js").name).toBe("js");
     expect(getKernels("wasm").name).toBe("wasm");
     expect(() => getKernels("fortran" as never)).toThrow(SeptumError);

@@ -25,7 +25,7 @@
  */
 import { CapacityError, InputError, SeptumError } from "../../errors.js";
 import type { DenseKernels } from "../types.js";
-import { KERNELS_WASM_BASE64 } from "./binary.generated.js";
+import { KERNELS_WASM_BASE64, KERNELS_WASM_FMA_BASE64 } from "./binary.generated.js";
 
 /** Bytes reserved for the kernels' scratch below the store (25 pages: see kernels.wat). */
 export const STORE_BASE_BYTES = 1638400;
@@ -33,6 +33,14 @@ const BASE = STORE_BASE_BYTES;
 const PAGE = 65536;
 /** wasm32 limit: 65536 pages = 4 GiB. */
 export const WASM32_MAX_PAGES = 65536;
+
+/**
+ * The two builds of the kernels: "simd" (f64x2 multiply then add; every
+ * engine with WebAssembly SIMD) and "fma" (the 4×4 tile's multiply-adds as
+ * relaxed-SIMD `f64x2.relaxed_madd`, a fused multiply-add where the engine
+ * has relaxed SIMD: Node 20 only behind --experimental-wasm-relaxed-simd).
+ */
+export type WasmVariant = "simd" | "fma";
 
 interface KernelExports {
   gemm(m: number, n: number, k: number, a: number, lda: number, b: number, ldb: number,
@@ -42,34 +50,35 @@ interface KernelExports {
   ldlt(n: number, a: number, lda: number, tiny: number): number;
 }
 
-let bytesCache: Uint8Array<ArrayBuffer> | undefined;
-let moduleCache: WebAssembly.Module | undefined;
+const bytesCache: Partial<Record<WasmVariant, Uint8Array<ArrayBuffer>>> = {};
+const moduleCache: Partial<Record<WasmVariant, WebAssembly.Module>> = {};
 
-/** The embedded kernel binary (decoded once). */
-export function wasmKernelBytes(): Uint8Array<ArrayBuffer> {
-  if (bytesCache === undefined) {
-    const text = KERNELS_WASM_BASE64;
-    if (typeof atob === "function") {
-      const s = atob(text);
-      const out = new Uint8Array(s.length);
-      for (let i = 0; i < s.length; i++) out[i] = s.charCodeAt(i);
-      bytesCache = out;
-    } else {
-      bytesCache = new Uint8Array(Buffer.from(text, "base64"));
-    }
+function decodeBase64(text: string): Uint8Array<ArrayBuffer> {
+  if (typeof atob === "function") {
+    const s = atob(text);
+    const out = new Uint8Array(s.length);
+    for (let i = 0; i < s.length; i++) out[i] = s.charCodeAt(i);
+    return out;
   }
-  return bytesCache;
+  return new Uint8Array(Buffer.from(text, "base64"));
+}
+
+/** The embedded kernel binary of a variant (decoded once). */
+export function wasmKernelBytes(variant: WasmVariant = "simd"): Uint8Array<ArrayBuffer> {
+  return (bytesCache[variant] ??= decodeBase64(variant === "fma" ? KERNELS_WASM_FMA_BASE64 : KERNELS_WASM_BASE64));
 }
 
 /**
- * True when this runtime has WebAssembly and its validator accepts the SIMD
- * kernel binary. `validate` replaces `WebAssembly.validate` (tests use it to
- * simulate a runtime without SIMD).
+ * True when this runtime has WebAssembly and its validator accepts the
+ * kernel binary of `variant` (default "simd"). `validate` replaces
+ * `WebAssembly.validate` (tests use it to simulate other runtimes).
  */
-export function wasmKernelsAvailable(validate?: (bytes: Uint8Array) => boolean): boolean {
+export function wasmKernelsAvailable(
+  validate?: (bytes: Uint8Array) => boolean, variant: WasmVariant = "simd",
+): boolean {
   if (typeof WebAssembly !== "object" || WebAssembly === null) return false;
   try {
-    return (validate ?? ((b: Uint8Array<ArrayBuffer>) => WebAssembly.validate(b)))(wasmKernelBytes());
+    return (validate ?? ((b: Uint8Array<ArrayBuffer>) => WebAssembly.validate(b)))(wasmKernelBytes(variant));
   } catch {
     return false;
   }
@@ -77,22 +86,30 @@ export function wasmKernelsAvailable(validate?: (bytes: Uint8Array) => boolean):
 
 /** Options of {@link wasmKernels}. */
 export interface WasmKernelOptions {
-  /** Page limit of the memory, scratch included (default and upper bound: 65536 = 4 GiB; at least 22). */
+  /** Page limit of the memory, scratch included (default and upper bound: 65536 = 4 GiB; at least 26). */
   maxPages?: number;
+  /** Which build: default "fma" where the runtime validates it, else "simd". */
+  variant?: WasmVariant;
+}
+
+/** A WebAssembly kernel set, with the build that runs. */
+export interface WasmKernels extends DenseKernels {
+  readonly variant: WasmVariant;
 }
 
 /** Create a WebAssembly SIMD kernel set with its own linear memory as store. */
-export function wasmKernels(options: WasmKernelOptions = {}): DenseKernels {
+export function wasmKernels(options: WasmKernelOptions = {}): WasmKernels {
   const maxPages = options.maxPages ?? WASM32_MAX_PAGES;
   if (!Number.isInteger(maxPages) || maxPages <= BASE / PAGE || maxPages > WASM32_MAX_PAGES) {
     throw new InputError(`maxPages must be an integer in ${BASE / PAGE + 1}..${WASM32_MAX_PAGES}, got ${maxPages}`);
   }
-  if (!wasmKernelsAvailable()) {
-    throw new SeptumError("this runtime's WebAssembly does not accept the SIMD kernels; use the \"js\" kernels");
+  const variant = options.variant ?? (wasmKernelsAvailable(undefined, "fma") ? "fma" : "simd");
+  if (!wasmKernelsAvailable(undefined, variant)) {
+    throw new SeptumError(`this runtime's WebAssembly does not accept the ${variant} kernels; use the "js" kernels`);
   }
-  moduleCache ??= new WebAssembly.Module(wasmKernelBytes());
+  const module = (moduleCache[variant] ??= new WebAssembly.Module(wasmKernelBytes(variant)));
   const memory = new WebAssembly.Memory({ initial: BASE / PAGE });
-  const x = new WebAssembly.Instance(moduleCache, { env: { memory } }).exports as unknown as KernelExports;
+  const x = new WebAssembly.Instance(module, { env: { memory } }).exports as unknown as KernelExports;
   let store = new Float64Array(0);
   const view = (): Float64Array => {
     if (store.buffer !== memory.buffer) {
@@ -126,6 +143,7 @@ export function wasmKernels(options: WasmKernelOptions = {}): DenseKernels {
   const addr = (off: number): number => BASE + 8 * off;
   return {
     name: "wasm",
+    variant,
     reserve,
     view,
     potrf: (n, a, lda) => x.potrf(n, addr(a), lda),
