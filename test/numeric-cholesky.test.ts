@@ -186,6 +186,21 @@ describe("multiple right-hand sides, storage forms, refactor", () => {
   });
 });
 
+describe("refinement uses the factored matrix", () => {
+  it("changing A's values after factoring does not change solveWithInfo's residual", () => {
+    const A = randomSpd(40, 0.2, 8);
+    const values = A.values.slice();
+    const F = factorize(analyse(A), A);
+    const b = randomVector(40, 1);
+    A.values.fill(1e6); // the caller reuses the array
+    const info = F.solveWithInfo(b, { refine: 1 });
+    const original = SparseMatrix.fromCSC(40, 40, A.colPtr, A.rowIdx, values);
+    expect(info.backwardError).toBeLessThanOrEqual(10 * 40 * EPS);
+    expect(denseBackwardError(dense(original), info.x, b)).toBeLessThanOrEqual(10 * 40 * EPS);
+    A.values.set(values);
+  });
+});
+
 describe("workspace prediction and progress", () => {
   it("store = factor + stack + scratch; Liu's child order never needs more stack than the plain postorder", () => {
     for (const seed of [1, 2, 3]) {

@@ -8,7 +8,7 @@
 import { AbortedError, InputError, NotPositiveDefiniteError, PatternMismatchError, SeptumError } from "../errors.js";
 import { jsKernels } from "../kernels/js/index.js";
 import type { DenseKernels } from "../kernels/types.js";
-import type { SparseMatrix } from "../matrix/sparse.js";
+import { SparseMatrix } from "../matrix/sparse.js";
 import { lowerTriangle, maxAbs, requireSquare, symmetricNormInf } from "../matrix/symmetric.js";
 import { multifrontal, type PivotFailure } from "./multifrontal.js";
 import { buildScatterMap, samePattern, scatterValues, type ScatterMap } from "./scatter.js";
@@ -84,8 +84,10 @@ export class Factorization {
     }
     const seconds = (performance.now() - t0) / 1000;
     const flops = this.cumulativeFlops[this.cumulativeFlops.length - 1] || 0;
-    this.matrix = A;
-    this.normInf = symmetricNormInf(A);
+    // Refinement needs the matrix that was factored, even if the caller later changes A's values.
+    const map = this.map as ScatterMap;
+    this.matrix = SparseMatrix.trusted(this.n, this.n, map.colPtr, map.rowIdx, A.values.slice(0, map.target.length));
+    this.normInf = symmetricNormInf(this.matrix);
     this.lastStats = {
       method: this.method, kernels: this.kernels.name, seconds, flops,
       gflopsPerSecond: seconds > 0 ? flops / seconds / 1e9 : 0,
