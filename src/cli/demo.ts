@@ -66,11 +66,14 @@ Plate ${P.width * 1000} × ${P.height * 1000} mm, ${P.thickness * 1000} mm alumi
   const A = lowerMatrix(system.matrix);
   say(`Mesh: ${num(mesh.nodeCount)} nodes, ${num(mesh.triangles.length / 3)} triangles (h = ${(h * 1000).toFixed(2)} mm); ${num(A.ncols)} unknowns after the channel nodes are eliminated  [${secs(io.now() - t0)}]\n\n`);
 
+  // node coordinates of the unknowns: nested dissection uses them to seed its cuts
+  const coordinates = new Float64Array(2 * A.ncols);
+  for (let i = 0; i < A.ncols; i++) coordinates.set(mesh.coords.subarray(2 * system.nodeOf[i], 2 * system.nodeOf[i] + 2), 2 * i);
   const list: Analysed[] = [], factorSeconds: number[] = [];
   let u: Float64Array = new Float64Array(0);
   for (const ordering of ORDERINGS) {
     const ta = io.now();
-    const analysis = analyze(A, { ordering, onProgress: (q) => line.update(`${ordering.split("-")[0]} ${q.phase}`, q.fraction) });
+    const analysis = analyze(A, { ordering, coordinates, onProgress: (q) => line.update(`${ordering.split("-")[0]} ${q.phase}`, q.fraction) });
     const tb = io.now();
     const F = analysis.factor(A, { onProgress: (q) => line.update(`${ordering.split("-")[0]} factor`, q.fraction) });
     const tc = io.now();
@@ -87,7 +90,7 @@ Plate ${P.width * 1000} × ${P.height * 1000} mm, ${P.thickness * 1000} mm alumi
   const total = P.cells.reduce((s, c) => s + c.watts, 0);
   let hot = 0;
   for (let v = 0; v < u.length; v++) if (u[v] > u[hot]) hot = v;
-  say(`Temperature: ${u.reduce((a, b) => Math.min(a, b))} … ${u[hot].toFixed(2)} °C, hottest at (${(mesh.coords[2 * hot] * 1000).toFixed(0)}, ${(mesh.coords[2 * hot + 1] * 1000).toFixed(0)}) mm.
+  say(`Temperature: ${u.reduce((a, b) => Math.min(a, b)).toFixed(2)} … ${u[hot].toFixed(2)} °C, hottest at (${(mesh.coords[2 * hot] * 1000).toFixed(0)}, ${(mesh.coords[2 * hot + 1] * 1000).toFixed(0)}) mm.
 Heat balance: ${load.toFixed(3)} W deposited (nominal ${total} W; the patch edges cut through triangles), ${outflow.toFixed(3)} W leave through the channels (relative gap ${sci(Math.abs(outflow - load) / load)}).
 
 `);

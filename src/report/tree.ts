@@ -8,7 +8,7 @@ import type { SeparatorTree } from "../ordering/types.js";
 import { depthColour, esc, fmt, treeChildren, treeDepths } from "./svg.js";
 
 /** SVG of the separator tree, `width` pixels wide, at most maxDepth + 1 rows. */
-export function separatorTreeSvg(t: SeparatorTree, n: number, width: number, maxDepth = 7): string {
+export function separatorTreeSvg(t: SeparatorTree, n: number, width: number, maxDepth = 6): string {
   const depth = treeDepths(t), ch = treeChildren(t);
   const rowH = 46, top = 22, m = 16;
   let shownDepth = 0;
