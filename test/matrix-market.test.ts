@@ -160,6 +160,13 @@ describe("lexical details", () => {
     expect(fromText.matrix.toDense()).toEqual([[Number(long)]]);
     expect(fromBytes.matrix.toDense()).toEqual([[Number(long)]]);
     expect(fromBytes.comments).toEqual(["Grüße, ∇·u = 0"]);
+    // A Node Buffer is a Uint8Array too.
+    expect(sparse(readMatrixMarket(Buffer.from(text, "utf8"))).matrix.toDense()).toEqual([[Number(long)]]);
+  });
+
+  it("refuses input that is neither text nor bytes with an InputError", () => {
+    expect(() => readMatrixMarket(42 as never)).toThrow(InputError);
+    expect(() => readMatrixMarket(null as never)).toThrow(/got null/);
   });
 
   it("reads entries in any order, including row-major and reversed", () => {

@@ -9,7 +9,7 @@
  * 1-based line.
  */
 
-import { MatrixMarketError } from "../errors.js";
+import { InputError, MatrixMarketError } from "../errors.js";
 import { SparseMatrix } from "./sparse.js";
 import { Cursor, decodeText, scanInteger, scanReal } from "./market-scan.js";
 
@@ -69,6 +69,9 @@ const BANNER = "%%matrixmarket";
  * @throws MatrixMarketError with the 1-based line number of the first problem.
  */
 export function readMatrixMarket(text: string | Uint8Array): MarketContents {
+  if (typeof text !== "string" && !(text instanceof Uint8Array)) {
+    throw new InputError(`readMatrixMarket expects a string or a Uint8Array, got ${text === null ? "null" : typeof text}`);
+  }
   const bytes = typeof text === "string" ? new TextEncoder().encode(text) : text;
   // UTF-8 and UTF-16 lengths agree exactly when the text is pure ASCII.
   const c = new Cursor(bytes, typeof text === "string" && text.length === bytes.length ? text : null);
@@ -89,7 +92,8 @@ function readBanner(c: Cursor): Banner {
   const b = c.bytes;
   let end = c.pos;
   while (end < b.length && b[end] !== 10) end++;
-  const words = decodeText(b.subarray(c.pos, end)).trim().split(/[ \t\r]+/);
+  // A banner is short; never decode more of a first line than this.
+  const words = decodeText(b.subarray(c.pos, Math.min(end, c.pos + 4096))).trim().split(/[ \t\r]+/);
   if (words[0]!.toLowerCase() !== BANNER) {
     c.fail("missing banner: the first line must begin with %%MatrixMarket");
   }
