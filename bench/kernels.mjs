@@ -1,6 +1,8 @@
 // Dense kernel rates, WebAssembly SIMD vs plain JS, and (when the numeric
 // factorization is built) whole factorizations of 3-D grids with both sets.
 // Run: npm run build && node bench/kernels.mjs [--sizes 64,128,256,512] [--grids 30,50] [--runs 5]
+// With `node --experimental-wasm-relaxed-simd bench/kernels.mjs` (Node 20) the
+// wasm set runs its fused-multiply-add build; the header line says which.
 // All ratios come from the same run. Time is the process's CPU time
 // (process.cpuUsage, user + system), not wall time, because the benchmark
 // machine is shared: CPU time does not count the slices another process ran
@@ -67,7 +69,8 @@ function kernelRates(K, n) {
   return { gemm, syrk, potrf };
 }
 
-console.log(`dense kernels, GF/s (median of ${runs} samples), node ${process.version}`);
+console.log(`dense kernels, GF/s (median of ${runs} samples, CPU time), node ${process.version}, ` +
+  `wasm build "${getKernels("wasm").variant}"`);
 const rows = [];
 for (const n of sizes) {
   const w = kernelRates(getKernels("wasm"), n);

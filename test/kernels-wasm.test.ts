@@ -18,6 +18,9 @@ import { CapacityError, SeptumError } from "../src/errors.js";
 import { autoChoice, getKernels } from "../src/kernels/index.js";
 import { jsKernels } from "../src/kernels/js/index.js";
 import type { DenseKernels } from "../src/kernels/types.js";
+import { SparseMatrix } from "../src/matrix/sparse.js";
+import { symmetricMultiply, symmetricNormInf } from "../src/matrix/symmetric.js";
+import { analyze } from "../src/solver/analyze.js";
 import { STORE_BASE_BYTES, WASM32_MAX_PAGES, type WasmKernels, wasmKernelBytes, wasmKernels } from "../src/kernels/wasm/index.js";
 import { TILE_MULADDS, compileKernels, fusedText } from "../scripts/wasm-source.mjs";
 
@@ -443,5 +446,69 @@ describe("kernel selection", () => {
     expect(getKernels("js").name).toBe("js");
     expect(getKernels("wasm").name).toBe("wasm");
     expect(() => getKernels("fortran" as never)).toThrow(SeptumError);
+  });
+});
+
+describe("whole factorization on either kernel set", () => {
+  /** Random sparse SPD matrix: random symmetric pattern, |values| < 1, diagonal = row sum of |off-diagonals| + 1 (strictly diagonally dominant ⇒ SPD, common practice). */
+  function randomSpd(n: number, density: number, seed: number): SparseMatrix {
+    const r = randoms(n * n, seed);
+    const rows: number[] = [], cols: number[] = [], vals: number[] = [];
+    const diag = new Float64Array(n).fill(1);
+    for (let j = 0; j < n; j++) {
+      for (let i = j + 1; i < n; i++) {
+        if (Math.abs(r[i + j * n]) < density) {
+          const v = r[j + i * n];
+          rows.push(i); cols.push(j); vals.push(v);
+          diag[i] += Math.abs(v); diag[j] += Math.abs(v);
+        }
+      }
+    }
+    for (let j = 0; j < n; j++) { rows.push(j); cols.push(j); vals.push(diag[j]); }
+    return SparseMatrix.fromTriplets(n, n, Int32Array.from(rows), Int32Array.from(cols), Float64Array.from(vals));
+  }
+
+  it("wasm and js factors give the same solution of random sparse SPD systems, small residual", () => {
+    fc.assert(fc.property(fc.integer({ min: 1, max: 120 }), fc.double({ min: 0.02, max: 0.3, noNaN: true }),
+      fc.integer({ min: 1, max: 2 ** 30 }), (n, density, seed) => {
+        const A = randomSpd(n, density, seed);
+        const analysis = analyze(A);
+        const b = randoms(n, seed + 3);
+        const xw = analysis.factor(A, { kernels: "wasm" }).solve(b);
+        const xj = analysis.factor(A, { kernels: "js" }).solve(b);
+        // normwise backward error ‖b − A·x‖∞ / (‖A‖∞‖x‖∞ + ‖b‖∞) ≤ c·n·eps (Cholesky, Higham §10.1; from memory)
+        const Ax = symmetricMultiply(A, xw);
+        let res = 0, xn = 0, bn = 0;
+        for (let i = 0; i < n; i++) {
+          res = Math.max(res, Math.abs(b[i] - Ax[i]));
+          xn = Math.max(xn, Math.abs(xw[i]));
+          bn = Math.max(bn, Math.abs(b[i]));
+        }
+        expect(res / (symmetricNormInf(A) * xn + bn)).toBeLessThanOrEqual(8 * n * EPS);
+        for (let i = 0; i < n; i++) expect(Math.abs(xw[i] - xj[i])).toBeLessThanOrEqual(1e-10 * (xn + 1));
+      }), { numRuns: 40 });
+  });
+
+  it("3-D 7-point grid 12³ (fronts past the 128-row slab): wasm and js solutions agree, L·D·Lᵀ too", () => {
+    const k = 12, n = k * k * k;
+    const rows: number[] = [], cols: number[] = [], vals: number[] = [];
+    for (let z = 0; z < k; z++) for (let y = 0; y < k; y++) for (let x = 0; x < k; x++) {
+      const i = (z * k + y) * k + x;
+      rows.push(i); cols.push(i); vals.push(6);
+      if (x + 1 < k) { rows.push(i + 1); cols.push(i); vals.push(-1); }
+      if (y + 1 < k) { rows.push(i + k); cols.push(i); vals.push(-1); }
+      if (z + 1 < k) { rows.push(i + k * k); cols.push(i); vals.push(-1); }
+    }
+    const A = SparseMatrix.fromTriplets(n, n, Int32Array.from(rows), Int32Array.from(cols), Float64Array.from(vals));
+    const analysis = analyze(A);
+    const b = randoms(n, 5);
+    for (const method of ["cholesky", "ldlt"] as const) {
+      const xw = analysis.factor(A, { kernels: "wasm", method }).solve(b);
+      const xj = analysis.factor(A, { kernels: "js", method }).solve(b);
+      let d = 0, xn = 0;
+      for (let i = 0; i < n; i++) { d = Math.max(d, Math.abs(xw[i] - xj[i])); xn = Math.max(xn, Math.abs(xw[i])); }
+      // the 7-point Laplacian's condition number is O(k²) (common practice): agreement to ~1e-12 relative
+      expect(d).toBeLessThanOrEqual(1e-12 * xn * k * k);
+    }
   });
 });
