@@ -239,6 +239,32 @@ describe("malformed files: MatrixMarketError with the 1-based line", () => {
     });
   }
 
+  it("mutated files either read or raise MatrixMarketError: never another error, never a hang (property)", () => {
+    const base = [
+      "%%MatrixMarket matrix coordinate real symmetric\n% c\n3 3 4\n1 1 4.5\n2 1 -1e-3\n3 3 2\n3 2 .5\n",
+      "%%MatrixMarket matrix array integer general\n2 2\n1\n-2\n3\n4\n",
+      "%%MatrixMarket matrix coordinate pattern general\n2 3 2\n1 3\n2 1\n",
+    ];
+    const alphabet = fc.constantFrom(..."0123456789 \t\r\n%.-+eEx");
+    const edit = fc.tuple(fc.nat(), fc.constantFrom("replace", "insert", "delete"), alphabet);
+    fc.assert(
+      fc.property(fc.constantFrom(...base), fc.array(edit, { minLength: 1, maxLength: 4 }), (text, edits) => {
+        let t = text;
+        for (const [at, kind, ch] of edits) {
+          const k = at % (t.length + 1);
+          t = kind === "insert" ? t.slice(0, k) + ch + t.slice(k) : t.slice(0, k) + (kind === "replace" ? ch : "") + t.slice(k + 1);
+        }
+        try {
+          readMatrixMarket(t);
+        } catch (e) {
+          expect(e).toBeInstanceOf(MatrixMarketError);
+          expect((e as MatrixMarketError).line).toBeGreaterThanOrEqual(1);
+        }
+      }),
+      { numRuns: 2000 },
+    );
+  });
+
   it("never allocates what the text cannot hold: a huge announced count fails at the end of the text", () => {
     const e = readError(H + "2000000000 2000000000 2000000000\n1 1 1\n");
     expect(e.line).toBe(3);
