@@ -2,25 +2,13 @@ import { afterAll, describe, expect, it } from "vitest";
 import { existsSync, mkdtempSync, readFileSync, rmSync } from "node:fs";
 import { tmpdir } from "node:os";
 import { join } from "node:path";
-import { convergenceStudy } from "../src/fem/manufactured.js";
-import { batteryPlate, BATTERY_PLATE } from "../src/fem/battery.js";
-import { directSolve } from "../src/cli/demo.js";
 import { main } from "../src/cli/main.js";
 
 const dir = mkdtempSync(join(tmpdir(), "septum-demo-"));
 afterAll(() => rmSync(dir, { recursive: true, force: true }));
 
 describe("demo", () => {
-  it("manufactured solution on the demo plate, solved by septum: observed L2 rates ≈ 2 (P1 is O(h²) in L2, common practice)", () => {
-    const levels = convergenceStudy(batteryPlate(0.006), BATTERY_PLATE.conductivity * BATTERY_PLATE.thickness, 3, directSolve);
-    expect(levels.length).toBe(3);
-    for (let l = 1; l < 3; l++) {
-      expect(levels[l].rate).toBeGreaterThan(1.8);
-      expect(levels[l].rate).toBeLessThan(2.2);
-    }
-  });
-
-  it("runs end to end on a coarse mesh: says it is illustrative, balances the heat, writes both pictures", () => {
+  it("runs end to end on a coarse mesh: says it is illustrative, balances the heat, converges at rate ≈ 2, writes both pictures", () => {
     let out = "";
     const code = main(["demo", "--size", "3", "-o", "out", "--quiet"], {
       stdout: (s) => (out += s), stderr: () => {}, stderrIsTTY: false, cwd: dir, now: () => performance.now() / 1000,
@@ -36,5 +24,12 @@ describe("demo", () => {
     expect(Math.abs(load - nominal)).toBeLessThan(0.05 * nominal); // quadrature of the patch edges, O(h) of the patch size
     expect(existsSync(join(dir, "out/report.html"))).toBe(true);
     expect(readFileSync(join(dir, "out/temperature.svg"), "utf8")).toContain("linearGradient");
+    // the printed refinement study, solved by septum: observed L2 rates ≈ 2 (P1 is O(h²) in L2, common practice)
+    const rates = [...out.matchAll(/^\s*[\d.]+\s+[\d ]+\s+[\d.]+e-\d+\s+([\d.]+)$/gm)].map((r) => Number(r[1]));
+    expect(rates.length).toBe(2);
+    for (const r of rates) {
+      expect(r).toBeGreaterThan(1.8);
+      expect(r).toBeLessThan(2.2);
+    }
   });
 });
