@@ -27,7 +27,8 @@ h1{font-size:26px;margin:0 0 2px}h2{font-size:18px;margin:34px 0 10px}
 .panel svg{display:block;max-width:100%;height:auto}
 figcaption{font-size:13px;color:var(--mute);padding:4px 6px 0}figcaption b{color:var(--ink)}
 .axis{font-size:11px;fill:#7a8494}.tlabel{font-size:11px;fill:#3a4456}
-.zero{fill:#2e9e5b;fill-opacity:.05;stroke:#2e9e5b;stroke-opacity:.85}
+.zero{fill:#2e9e5b;fill-opacity:.06;stroke:#2e9e5b;stroke-opacity:.85}
+.under *{stroke:none!important}.over *{fill:none!important}
 .box>svg{display:block;max-width:100%;height:auto}
 .tedges line{stroke:#b8c2cf;stroke-width:1.2}
 .box{background:#fff;border:1px solid var(--line);border-radius:10px;padding:14px 16px;overflow-x:auto}
@@ -48,7 +49,9 @@ export function renderReport(r: ReportInput): string {
   const size = binCount(r.n);
   const nnzLowerA = r.lowerColPtr[r.n];
   const blue = palette(DENSITY_STOPS), warm = palette(FACTOR_STOPS);
-  const img = (pixels: Uint8Array, pal: Uint8Array) => pngDataUrl(size, size, pixels, pal);
+  const clear = new Uint8Array(256).fill(255);
+  clear[0] = 0; // empty cells transparent, so separator bands show through
+  const img = (pixels: Uint8Array, pal: Uint8Array) => pngDataUrl(size, size, pixels, pal, clear);
   const aUrl = img(densityPixels(binSymmetric(r.n, r.lowerColPtr, r.lowerRowIdx, null, size)), blue);
   const inverse = shown?.permutation ? invert(shown.permutation) : null;
   const panels = [matrixPanel({ title: "A as given", caption: `${fmt(r.nnzA)} nonzeros in the file's numbering.`, n: r.n, imageUrl: aUrl, px: PX })];

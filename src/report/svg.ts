@@ -48,12 +48,15 @@ export interface PanelOptions {
   readonly caption: string;
   readonly n: number;
   readonly imageUrl: string;
-  /** SVG drawn over the image in matrix coordinates (0..n on both axes) */
+  /**
+   * SVG in matrix coordinates (0..n on both axes), drawn twice: its fills
+   * beneath the (transparent-background) image, its outlines above it.
+   */
   readonly overlay?: string;
   readonly px?: number;
 }
 
-/** One matrix picture: the density image in a frame with index labels. */
+/** One matrix picture: the density image (empty cells transparent) in a frame with index labels. */
 export function matrixPanel(o: PanelOptions): string {
   const px = o.px ?? 360, m = 22, ml = 12 + 6.5 * fmt(o.n).length;
   const s = px / o.n;
@@ -63,8 +66,9 @@ export function matrixPanel(o: PanelOptions): string {
 <text x="${ml - 5}" y="${m + 10}" class="axis" text-anchor="end">1</text><text x="${ml - 5}" y="${px + m}" class="axis" text-anchor="end">${fmt(o.n)}</text>
 <g transform="translate(${ml},${m})">
 <rect width="${px}" height="${px}" fill="#fff"/>
+${o.overlay ? `<g transform="scale(${s})" class="under">${o.overlay}</g>` : ""}
 <image href="${o.imageUrl}" width="${px}" height="${px}" preserveAspectRatio="none" style="image-rendering:pixelated"/>
-${o.overlay ? `<g transform="scale(${s})">${o.overlay}</g>` : ""}
+${o.overlay ? `<g transform="scale(${s})" class="over">${o.overlay}</g>` : ""}
 <rect width="${px}" height="${px}" fill="none" stroke="#334" stroke-width="1"/>
 </g></svg>
 <figcaption><b>${esc(o.title)}</b><br>${o.caption}</figcaption></figure>`;
@@ -97,8 +101,8 @@ export function separatorOverlay(t: SeparatorTree, n: number, px: number, lowerO
     if (e > sf) {
       // a band at least 1.5 pixels thick, so small separators stay visible
       const t = Math.max(e - sf, 1.5 * (n / px)), s0 = e - t;
-      parts.push(`<rect x="${f}" y="${s0}" width="${e - f}" height="${t}" fill="${col}" fill-opacity="0.3" stroke="${col}" stroke-width="${sw}"/>`);
-      if (!lowerOnly) parts.push(`<rect x="${s0}" y="${f}" width="${t}" height="${s0 - f}" fill="${col}" fill-opacity="0.3" stroke="${col}" stroke-width="${sw}"/>`);
+      parts.push(`<rect x="${f}" y="${s0}" width="${e - f}" height="${t}" fill="${col}" fill-opacity="0.35" stroke="${col}" stroke-width="${sw}"/>`);
+      if (!lowerOnly) parts.push(`<rect x="${s0}" y="${f}" width="${t}" height="${s0 - f}" fill="${col}" fill-opacity="0.35" stroke="${col}" stroke-width="${sw}"/>`);
     }
   }
   return parts.join("\n");
