@@ -4,6 +4,7 @@ import { grid2d, grid3d } from "../src/generate/grids.js";
 import { elasticity3d, hexStiffness } from "../src/generate/elasticity.js";
 import { geometricLaplacian } from "../src/generate/graphs.js";
 import { plateMesh2d } from "../src/generate/plate.js";
+import { saddle2d } from "../src/generate/saddle.js";
 import { symmetricMultiply } from "../src/matrix/symmetric.js";
 import type { SparseMatrix } from "../src/matrix/sparse.js";
 
@@ -81,5 +82,12 @@ describe("model problems", () => {
     let zeroRows = 0;
     for (const v of r) if (Math.abs(v) < 1e-12) zeroRows++;
     expect(zeroRows).toBeGreaterThan(0.8 * m.matrix.ncols);
+  });
+
+  it("saddle2d: quasi-definite, so its inertia is (velocity unknowns, pressure unknowns) (Vanderbei 1995; eigenvalues by ml-matrix)", () => {
+    const k = 4;
+    const ev = new EigenvalueDecomposition(dense(saddle2d(k).matrix)).realEigenvalues;
+    expect(ev.filter((v) => v > 0).length).toBe(2 * k * k);
+    expect(ev.filter((v) => v < 0).length).toBe((k - 1) * (k - 1));
   });
 });

@@ -143,6 +143,16 @@ describe("septum solve", () => {
     }
   });
 
+  it("a quasi-definite saddle point: Cholesky refuses with a hint, --method ldlt solves it", () => {
+    expect(run(["generate", "saddle2d", "10", "-o", "s10.mtx", "--quiet"]).code).toBe(0);
+    expectOneLineError(run(["solve", "s10.mtx"]), 1, "s10.mtx: the matrix is not positive definite", "try --method ldlt");
+    const r = run(["solve", "s10.mtx", "--method", "ldlt", "--json"]);
+    expect(r.code).toBe(0);
+    const j = JSON.parse(r.out);
+    expect(j.n).toBe(2 * 100 + 81);
+    expect(j.backwardError).toBeLessThan(j.n * Number.EPSILON * 10); // normwise backward error O(n·eps) for a stable factorization (common practice)
+  });
+
   it("a right-hand side of the wrong length names both sizes", () => {
     file("b4.mtx", "%%MatrixMarket matrix array real general\n4 1\n1\n2\n3\n4\n");
     expectOneLineError(run(["solve", file("a3b.mtx", SPD3), "--rhs", "b4.mtx"]), 1, "b4.mtx: has 4 rows, but the matrix has 3");

@@ -4,12 +4,13 @@ import { grid2d, grid3d, type ModelProblem } from "../generate/grids.js";
 import { elasticity3d } from "../generate/elasticity.js";
 import { plateMesh2d } from "../generate/plate.js";
 import { geometricLaplacian } from "../generate/graphs.js";
+import { saddle2d } from "../generate/saddle.js";
 import { writeText } from "./files.js";
 import { UsageError, type CliIO } from "./io.js";
 import { numberOption, type Parsed } from "./options.js";
 import { num } from "./format.js";
 
-const KINDS = ["grid2d", "grid3d", "elasticity3d", "mesh2d", "laplacian"];
+const KINDS = ["grid2d", "grid3d", "elasticity3d", "mesh2d", "laplacian", "saddle2d"];
 
 /** Build the model problem named on the command line. */
 export function buildModel(kind: string, sizeText: string, p: Parsed): ModelProblem {
@@ -25,6 +26,7 @@ export function buildModel(kind: string, sizeText: string, p: Parsed): ModelProb
     case "elasticity3d": return elasticity3d(size);
     case "mesh2d": return plateMesh2d(size, numberOption("contrast", p.values.contrast, 1, 1e-12, 1e12));
     case "laplacian": return geometricLaplacian(size, numberOption("degree", p.values.degree, 8, 1, 1000), 1e-2, numberOption("seed", p.values.seed, 1, 0, 2 ** 31 - 1, true));
+    case "saddle2d": return saddle2d(size);
     default: throw new UsageError(`generate: unknown kind '${kind}'; expected ${KINDS.join(", ")}`);
   }
 }

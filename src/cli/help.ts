@@ -77,6 +77,9 @@ Kinds:
                     conductivity jump of C in inclusions
   laplacian N       screened Laplacian of a random geometric graph with N vertices
                     (--degree D mean degree, default 8; --seed S)
+  saddle2d K        quasi-definite saddle point (stabilized Stokes shape): two
+                    velocity components on a K×K grid plus pressures; solve it
+                    with --method ldlt
 
 Options:
   -o, --output FILE the Matrix Market file to write (required)
