@@ -43,6 +43,7 @@ export function readMatrixFile(io: CliIO, path: string): { matrix: SparseMatrix;
   if (contents.kind !== "sparse") throw new FileError(`${path}: is a dense 'array' file, expected a sparse 'coordinate' matrix`);
   const A = contents.matrix;
   if (A.nrows !== A.ncols) throw new FileError(`${path}: the matrix is ${A.nrows} × ${A.ncols}, expected a square matrix`);
+  if (A.nrows === 0) throw new FileError(`${path}: the matrix is 0 × 0; there is nothing to solve`);
   return { matrix: A, symmetricFile: contents.symmetric };
 }
 
