@@ -13,7 +13,7 @@ import type { Coordinates } from "../coordinates.js";
 import { coordinateCut } from "../coordinates.js";
 import type { OrderingResult, SeparatorTree } from "../types.js";
 import {
-  defaultBisectOptions, multilevelBisection, multilevelSeparator, refineGiven, separate, type BisectOptions,
+  defaultBisectOptions, lighter, multilevelSeparator, refineGiven, separate, type BisectOptions,
 } from "./multilevel.js";
 import { fmWork, type FmWork } from "./refine.js";
 import { Rng } from "./rng.js";
@@ -107,6 +107,11 @@ function processPiece(s: State, piece: Piece): void {
   pushComponents(s, g, piece.ids, label, 1, mid, node);
 }
 
+/**
+ * Separator of a piece. With coordinates: "plain" takes the coordinate cut's
+ * one-sided boundary as is; "refine" (default) refines the coordinate cut like
+ * a multilevel one and keeps the lighter of it and the multilevel separator.
+ */
 function findSeparator(s: State, piece: Piece): Int8Array {
   const { graph: g, ids } = piece;
   const c = s.o.coordinates;
@@ -114,9 +119,8 @@ function findSeparator(s: State, piece: Piece): Int8Array {
   if (c === undefined || mode === "ignore") return multilevelSeparator(g, s.rng, s.bisect, s.work);
   const cut = coordinateCut(g, ids, c);
   if (mode === "plain") return separate(g, { label: cut, weight: [0, 0], cut: 0 }, { ...s.bisect, separatorRefinement: "none" }, s.work);
-  const byCoordinates = refineGiven(g, cut, s.bisect, s.work);
-  const multilevel = multilevelBisection(g, s.rng, s.bisect, s.work);
-  return separate(g, multilevel.cut < byCoordinates.cut ? multilevel : byCoordinates, s.bisect, s.work);
+  const byCoordinates = separate(g, refineGiven(g, cut, s.bisect, s.work), s.bisect, s.work);
+  return lighter(g, byCoordinates, multilevelSeparator(g, s.rng, s.bisect, s.work));
 }
 
 /**

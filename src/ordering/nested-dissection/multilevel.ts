@@ -97,7 +97,7 @@ export function multilevelSeparator(g: WGraph, rng: Rng, o: BisectOptions, work:
 }
 
 /** The labelling with the lighter separator; ties go to the better balance. */
-function lighter(g: WGraph, a: Int8Array, b: Int8Array): Int8Array {
+export function lighter(g: WGraph, a: Int8Array, b: Int8Array): Int8Array {
   const wa = [0, 0, 0];
   const wb = [0, 0, 0];
   for (let v = 0; v < g.n; v++) { wa[a[v]] += g.vwgt[v]; wb[b[v]] += g.vwgt[v]; }

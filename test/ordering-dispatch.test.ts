@@ -1,0 +1,147 @@
+import { describe, expect, it } from "vitest";
+import { AbortedError, InputError } from "../src/errors.js";
+import type { Graph } from "../src/graph/types.js";
+import { computeOrdering, DISSECTION_THRESHOLD } from "../src/ordering/index.js";
+import type { SeparatorTree } from "../src/ordering/types.js";
+import { columnCounts } from "../src/symbolic/column-counts.js";
+import { eliminationTree, postorder } from "../src/symbolic/etree.js";
+
+function graphOf(n: number, add: (edge: (a: number, b: number) => void) => void): Graph {
+  const sets: Set<number>[] = Array.from({ length: n }, () => new Set<number>());
+  add((a, b) => { if (a !== b) { sets[a].add(b); sets[b].add(a); } });
+  const offsets = new Int32Array(n + 1);
+  let total = 0;
+  for (let v = 0; v < n; v++) { total += sets[v].size; offsets[v + 1] = total; }
+  const neighbours = new Int32Array(total);
+  for (let v = 0; v < n; v++) neighbours.set([...sets[v]].sort((x, y) => x - y), offsets[v]);
+  return { n, offsets, neighbours };
+}
+const grid2 = (k: number): Graph => graphOf(k * k, (e) => {
+  for (let v = 0; v < k * k; v++) { if (v % k + 1 < k) e(v, v + 1); if (v + k < k * k) e(v, v + k); }
+});
+/** k×k×k nodes, `dof` unknowns per node, all unknowns of nodes within one step (27-point) coupled: elasticity-like. */
+function elasticity(k: number, dof: number): Graph {
+  const nodes = k * k * k;
+  return graphOf(nodes * dof, (e) => {
+    for (let v = 0; v < nodes; v++) {
+      const x = v % k, y = Math.floor(v / k) % k, z = Math.floor(v / (k * k));
+      for (let dz = -1; dz <= 1; dz++) for (let dy = -1; dy <= 1; dy++) for (let dx = -1; dx <= 1; dx++) {
+        const X = x + dx, Y = y + dy, Z = z + dz;
+        if (X < 0 || Y < 0 || Z < 0 || X >= k || Y >= k || Z >= k) continue;
+        const u = (Z * k + Y) * k + X;
+        for (let a = 0; a < dof; a++) for (let b = 0; b < dof; b++) e(dof * v + a, dof * u + b);
+      }
+    }
+  });
+}
+function isPermutation(p: Int32Array, n: number): boolean {
+  if (p.length !== n) return false;
+  const seen = new Uint8Array(n);
+  for (const v of p) { if (v < 0 || v >= n || seen[v]) return false; seen[v] = 1; }
+  return true;
+}
+function flops(g: Graph, perm: Int32Array): number {
+  const inv = new Int32Array(g.n);
+  for (let k = 0; k < g.n; k++) inv[perm[k]] = k;
+  const parent = eliminationTree(g, perm, inv);
+  let f = 0;
+  for (const c of columnCounts(g, perm, inv, parent, postorder(parent))) f += c * c;
+  return f;
+}
+function rangesPartition(t: SeparatorTree, n: number): boolean {
+  let covered = 0;
+  for (let i = 0; i < t.count; i++) if (t.parent[i] === -1) covered += t.end[i] - t.first[i];
+  for (let i = 0; i < t.count; i++) if (t.first[i] > t.separatorFirst[i] || t.separatorFirst[i] > t.end[i]) return false;
+  return covered === n;
+}
+
+describe("computeOrdering", () => {
+  it("runs every named ordering and returns a permutation", () => {
+    const g = grid2(30);
+    for (const ordering of ["nested-dissection", "minimum-degree", "reverse-cuthill-mckee", "natural"] as const) {
+      const r = computeOrdering(g, { ordering });
+      expect(r.name).toBe(ordering);
+      expect(isPermutation(r.permutation, g.n)).toBe(true);
+    }
+    expect(Array.from(computeOrdering(g, { ordering: "natural" }).permutation)).toEqual(Array.from({ length: g.n }, (_, i) => i));
+  });
+
+  it("defaults to minimum degree for small graphs and nested dissection above the threshold", () => {
+    expect(computeOrdering(grid2(10)).name).toBe("minimum-degree");
+    const big = grid2(Math.ceil(Math.sqrt(DISSECTION_THRESHOLD)) + 2);
+    const r = computeOrdering(big);
+    expect(r.name).toBe("nested-dissection");
+    expect(r.separatorTree).toBeDefined();
+  });
+
+  it("accepts a valid user permutation and names the first bad entry of an invalid one", () => {
+    const g = grid2(3);
+    const p = Int32Array.from([8, 7, 6, 5, 4, 3, 2, 1, 0]);
+    expect(computeOrdering(g, { ordering: p }).permutation).toEqual(p);
+    expect(() => computeOrdering(g, { ordering: Int32Array.from([0, 1, 2]) })).toThrow(/length 3, expected n = 9/);
+    expect(() => computeOrdering(g, { ordering: Int32Array.from([0, 1, 2, 3, 4, 5, 6, 7, 9]) })).toThrow(/ordering\[8\] = 9 is out of range/);
+    expect(() => computeOrdering(g, { ordering: Int32Array.from([0, 1, 2, 3, 4, 5, 6, 1, 8]) })).toThrow(/ordering\[7\] = 1 repeats ordering\[1\]/);
+    expect(() => computeOrdering(g, { ordering: Int32Array.from([0, 1, 2, 3, -4, 5, 6, 7, 8]) })).toThrow(InputError);
+  });
+
+  it("rejects unknown orderings, bad seeds and bad coordinates with InputError naming the entry", () => {
+    const g = grid2(20);
+    expect(() => computeOrdering(g, { ordering: "banded" as never })).toThrow(InputError);
+    expect(() => computeOrdering(g, { seed: Number.NaN })).toThrow(InputError);
+    expect(() => computeOrdering(g, { ordering: "nested-dissection", coordinates: new Float64Array(5) })).toThrow(/coordinates has length 5/);
+    const bad = new Float64Array(2 * g.n);
+    bad[7] = Number.POSITIVE_INFINITY;
+    expect(() => computeOrdering(g, { ordering: "nested-dissection", coordinates: bad })).toThrow(/coordinates\[7\] \(vertex 3, axis 1\)/);
+  });
+
+  it("stops with AbortedError when the signal is aborted, before or during the dissection", () => {
+    const g = grid2(60);
+    const before = new AbortController();
+    before.abort();
+    expect(() => computeOrdering(g, { ordering: "nested-dissection", signal: before.signal })).toThrow(AbortedError);
+    const during = new AbortController();
+    let calls = 0;
+    const onProgress = (f: number) => { calls++; if (f > 0.2) during.abort(); };
+    expect(() => computeOrdering(g, { ordering: "nested-dissection", signal: during.signal, onProgress })).toThrow(AbortedError);
+    expect(calls).toBeGreaterThan(0);
+  });
+
+  it("reports progress from 0 to 1", () => {
+    const seen: number[] = [];
+    computeOrdering(grid2(40), { ordering: "nested-dissection", onProgress: (f) => seen.push(f) });
+    expect(seen.every((f, i) => f >= 0 && f <= 1 && (i === 0 || f >= seen[i - 1]))).toBe(true);
+    expect(seen[seen.length - 1]).toBe(1);
+  });
+
+  it("orders a 3-dof elasticity pattern through compression: each node's dofs adjacent, tree in original positions", () => {
+    const dof = 3;
+    const g = elasticity(8, dof);
+    const r = computeOrdering(g, { ordering: "nested-dissection" });
+    expect(isPermutation(r.permutation, g.n)).toBe(true);
+    for (let k = 0; k < g.n; k += dof) {
+      const node = Math.floor(r.permutation[k] / dof);
+      for (let a = 1; a < dof; a++) expect(Math.floor(r.permutation[k + a] / dof)).toBe(node);
+    }
+    expect(rangesPartition(r.separatorTree!, g.n)).toBe(true);
+    for (let i = 0; i < r.separatorTree!.count; i++) expect(r.separatorTree!.end[i] % dof).toBe(0);
+  });
+
+  it("uses coordinates: coordinate bisection gives a valid, competitive ordering of a grid", () => {
+    const k = 80;
+    const g = grid2(k);
+    const xy = new Float64Array(2 * g.n);
+    for (let v = 0; v < g.n; v++) { xy[2 * v] = v % k; xy[2 * v + 1] = Math.floor(v / k); }
+    const withXY = computeOrdering(g, { ordering: "nested-dissection", coordinates: xy });
+    const plain = computeOrdering(g, { ordering: "nested-dissection" });
+    expect(isPermutation(withXY.permutation, g.n)).toBe(true);
+    expect(flops(g, withXY.permutation)).toBeLessThan(1.3 * flops(g, plain.permutation));
+  });
+
+  it("handles the empty graph and a single vertex", () => {
+    const empty = graphOf(0, () => {});
+    for (const ordering of ["nested-dissection", "minimum-degree", "reverse-cuthill-mckee", "natural"] as const) {
+      expect(computeOrdering(empty, { ordering }).permutation.length).toBe(0);
+      expect(Array.from(computeOrdering(graphOf(1, () => {}), { ordering }).permutation)).toEqual([0]);
+    }
+  });
+});
