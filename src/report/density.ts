@@ -61,7 +61,10 @@ export function binFactor(s: SupernodalStructure, size: number, relabel: Int32Ar
   return { n: s.n, size, counts };
 }
 
-/** Palette indices: 0 for an empty cell, 1..255 along log(1 + 999 f) / log 1000 of the filled fraction f. */
+/**
+ * Palette indices: 0 for an empty cell, 1..255 along log(1 + 999 f) / log 1000
+ * of the filled fraction f of a binned cell; a one-entry cell gets 0.7 of the ramp.
+ */
 export function densityPixels(b: Binning): Uint8Array {
   const { n, size, counts } = b;
   const pixels = new Uint8Array(size * size);
@@ -72,8 +75,10 @@ export function densityPixels(b: Binning): Uint8Array {
     for (let c = 0; c < size; c++) {
       const k = counts[r * size + c];
       if (k === 0) continue;
-      const f = Math.min(1, k / (span[r] * span[c]));
-      pixels[r * size + c] = 1 + Math.round(254 * Math.log1p(999 * f) * norm);
+      const area = span[r] * span[c];
+      // an unbinned entry gets a mid-dark tone; binned cells run along the log ramp
+      const t = area === 1 ? 0.7 : Math.log1p(999 * Math.min(1, k / area)) * norm;
+      pixels[r * size + c] = 1 + Math.round(254 * t);
     }
   }
   return pixels;

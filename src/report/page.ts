@@ -76,7 +76,7 @@ export function renderReport(r: ReportInput): string {
     ["unknowns n", fmt(r.n)], ["nonzeros of A", fmt(r.nnzA)],
     ...(shown ? [["nnz(L), " + shown.name, fmt(shown.figures.nnzL)], ["flops", fmt(shown.figures.flops, true)], ["supernodes", fmt(shown.figures.supernodes)]] : []),
   ].map(([k, v]) => `<div class="card"><b>${v}</b><span>${esc(k)}</span></div>`).join("");
-  const tree = shown?.separatorTree
+  const tree = shown?.separatorTree && shown.separatorTree.count > 1
     ? `<h2>Separator tree (${shown.name})</h2><div class="box">${separatorTreeSvg(shown.separatorTree, r.n, 1180)}
 <p class="note">Each disc is a separator, placed above the positions it covers (aligned with the pictures above); its area grows with its size. Grey squares are leaf subdomains. Nodes on different branches share no entries of L, so their factorizations are independent work.</p></div>`
     : "";
@@ -89,7 +89,7 @@ export function renderReport(r: ReportInput): string {
 <div class="cards">${cards}</div>
 <h2>Sparsity patterns</h2>
 <div class="panels">${panels.join("\n")}</div>
-<div class="legend"><span><i style="background:#6b9ed6"></i>entries of A (darker = denser cell)</span><span><i style="background:#f3944f"></i>entries of L</span><span><i style="background:#2e9e5b;opacity:.5"></i>zero blocks</span><span>Large matrices are binned to ${size}×${size} cells.</span></div>
+<div class="legend"><span><i style="background:#6b9ed6"></i>entries of A (darker = denser cell)</span><span><i style="background:#f3944f"></i>entries of L</span><span><i style="background:#2e9e5b;opacity:.5"></i>zero blocks</span><span>${size < r.n ? `Binned to ${size}×${size} cells of about ${fmt(r.n / size)}×${fmt(r.n / size)} entries.` : "One cell per entry."}</span></div>
 ${tree}
 ${extra}
 <h2>Orderings side by side</h2>

@@ -12,6 +12,10 @@ function bar(value: number, lo: number, hi: number, colour: string): string {
   return `<svg width="82" height="10" class="bar"><rect width="${w.toFixed(1)}" height="10" rx="2" fill="${colour}"/></svg>`;
 }
 
+function bytes(b: number | undefined): string {
+  return b === undefined ? "–" : b < 2 ** 20 ? `${(b / 1024).toFixed(1)} kB` : `${(b / 2 ** 20).toFixed(1)} MiB`;
+}
+
 function secs(x: number | undefined): string {
   return x === undefined ? "–" : x < 0.01 ? `${(x * 1000).toFixed(1)} ms` : `${x.toFixed(2)} s`;
 }
@@ -33,7 +37,7 @@ ${cell(f.nnzL, bNnz, fmt(f.nnzL))}<td>${bar(f.nnzL, loNnz, hiNnz, "#f3944f")}</t
 ${cell(f.flops, bFl, fmt(f.flops, true))}<td>${bar(f.flops, loFl, hiFl, "#2557a3")}</td>
 <td class="num">${f.flops === bFl ? "1" : (f.flops / bFl).toFixed(1)}×</td>
 ${cell(f.supernodes, bSn, fmt(f.supernodes))}
-<td class="num">${f.factorBytes === undefined ? "–" : `${(f.factorBytes / 2 ** 20).toFixed(1)} MiB`}</td>
+<td class="num">${bytes(f.factorBytes)}</td>
 <td class="num">${secs(f.orderingSeconds)}</td><td class="num">${secs(f.analyzeSeconds)}</td>${hasFactor ? `<td class="num">${secs(f.factorSeconds)}</td>` : ""}</tr>`;
   });
   return `<table class="cmp"><thead><tr><th>ordering</th><th class="num">nnz(L)</th><th></th><th class="num">fill</th>
