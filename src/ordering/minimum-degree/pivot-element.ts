@@ -98,7 +98,7 @@ function saveList(s: MdWorkspace, j: number, from: number, to: number): void {
 export function externalSizes(s: MdWorkspace, el: NewElement): void {
   const { arena, start, elementCount, weight, mark, degree } = s;
   const mark0 = s.mark0;
-  for (let pm = el.first; pm < el.end; pm++) {
+  for (let pm = el.first, pmEnd = el.end; pm < pmEnd; pm++) {
     const i = arena[pm];
     const wi = -weight[i];
     const p0 = start[i];

@@ -16,7 +16,7 @@ export function pruneAndBound(s: MdWorkspace, me: number, el: NewElement, aggres
   const { hashHead, hashNext, hashKey } = s;
   const mark0 = s.mark0;
   const n = s.n;
-  for (let pm = el.first; pm < el.end; pm++) {
+  for (let pm = el.first, pmEnd = el.end; pm < pmEnd; pm++) {
     const i = arena[pm];
     const p1 = start[i];
     const p2 = p1 + elementCount[i];
@@ -80,14 +80,14 @@ function massEliminate(s: MdWorkspace, i: number, el: NewElement): void {
 /** Merge variables of Lme that have identical lists (same hash bucket, then compared). */
 export function mergeIndistinguishable(s: MdWorkspace, el: NewElement): void {
   const { arena, start, size, elementCount, weight, mark, hashHead, hashNext, hashKey } = s;
-  for (let pm = el.first; pm < el.end; pm++) {
+  for (let pm = el.first, pmEnd = el.end; pm < pmEnd; pm++) {
     const i = arena[pm];
     if (weight[i] >= 0) continue;
     const key = hashKey[i];
     let a = hashHead[key];
     if (a === -1) continue;
     hashHead[key] = -1;
-    for (; a !== -1; a = hashNext[a]) {
+    for (; a !== -1 && hashNext[a] !== -1; a = hashNext[a]) {
       const len = size[a];
       const ec = elementCount[a];
       const pa = start[a];
@@ -123,7 +123,7 @@ export function finishElement(s: MdWorkspace, me: number, el: NewElement, builtA
   const remaining = s.n - s.eliminated;
   const dme = el.cliqueWeight;
   let dst = el.first;
-  for (let pm = el.first; pm < el.end; pm++) {
+  for (let pm = el.first, pmEnd = el.end; pm < pmEnd; pm++) {
     const i = arena[pm];
     const w = weight[i];
     if (w >= 0) continue; // merged or mass eliminated (weight 0)
