@@ -75,7 +75,7 @@ const rows = [];
 for (const n of sizes) {
   const w = kernelRates(getKernels("wasm"), n);
   const j = kernelRates(getKernels("js"), n);
-  rows.push({ n, ...w, ...j });
+  rows.push({ n, wasm: w, js: j });
   console.log(
     `n=${String(n).padStart(4)}  wasm gemm ${w.gemm.toFixed(1).padStart(5)}  syrk ${w.syrk.toFixed(1).padStart(5)}` +
     `  potrf ${w.potrf.toFixed(1).padStart(5)}  |  js gemm ${j.gemm.toFixed(1).padStart(5)}` +
@@ -106,5 +106,5 @@ for (const k of grids) {
   console.log(
     `grid ${k}^3: n=${st.n} nnzL=${st.nnzL} flops=${st.flops.toExponential(2)} analyze ${tAnalyze.toFixed(2)} s | ` +
     `factor wasm ${res.wasm.toFixed(2)} s (${gfW.toFixed(1)} GF/s)  js ${res.js.toFixed(2)} s (${gfJ.toFixed(1)} GF/s) | ` +
-    `wasm/js ${(res.js / res.wasm).toFixed(2)}x  factor/micro(syrk ${micro.n}) ${(gfW / micro.syrk).toFixed(2)}`);
+    `wasm/js ${(res.js / res.wasm).toFixed(2)}x  factor ÷ wasm syrk(${micro.n}) ${(gfW / micro.wasm.syrk).toFixed(2)}`);
 }

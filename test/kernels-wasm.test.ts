@@ -291,6 +291,31 @@ describe("wasm potrf", () => {
   });
 });
 
+describe("degenerate calls", () => {
+  it("empty shapes are no-ops; NaN and infinite pivots are reported like non-positive ones (as the JS set does)", () => {
+    const W = wasmKernels(), J = jsKernels();
+    for (const K of [W, J]) {
+      const S = K.reserve(64);
+      S.fill(3);
+      K.gemm(0, 5, 5, 0, 1, 0, 5, 0, 1, false);
+      K.gemm(5, 5, 0, 0, 5, 0, 5, 0, 5, true);
+      K.trsm(0, 4, 0, 4, 0, 1, false);
+      K.trsm(4, 0, 0, 1, 0, 4, true);
+      expect(K.view().slice(0, 64).every((v) => v === 3)).toBe(true);
+      expect(K.potrf(0, 0, 1)).toBe(-1);
+      expect(K.ldlt(0, 0, 1, 1e-14)).toBe(-1);
+      for (const bad of [Number.NaN, Number.POSITIVE_INFINITY]) {
+        S.fill(0);
+        for (let j = 0; j < 6; j++) S[j + j * 6] = j === 4 ? bad : 2;
+        expect(K.potrf(6, 0, 6)).toBe(4);
+        S.fill(0);
+        for (let j = 0; j < 6; j++) S[j + j * 6] = j === 4 ? bad : -2;
+        expect(K.ldlt(6, 0, 6, 1e-14)).toBe(4);
+      }
+    }
+  });
+});
+
 describe("wasm ldlt", () => {
   it("recovers the unit L and signed D of a quasi-definite A = L·D·Lᵀ", () => {
     const K = wasmKernels();
