@@ -436,6 +436,28 @@ describe("store memory", () => {
     expect(K.view()[2_999_999]).toBe(-11);
   });
 
+  it("operands above 2 GiB (unsigned addressing) give the same results as at low offsets", () => {
+    // Only the touched pages get committed: the memory grows past 2^31 bytes but uses little RAM.
+    const K = wasmKernels();
+    const n = 37, k = 29, lda = n + 3, len = lda * (n + 2 * k) + 16;
+    const hi = 2 ** 31 / 8 + 12345;
+    const S = K.reserve(hi + len);
+    const init = randoms(len, 77);
+    for (let j = 0; j < n; j++) init[j + j * lda] = 4 * n;
+    const run = (o: number) => {
+      S.set(init, o);
+      K.gemm(n, n, k, o + lda * n, lda, o + lda * (n + k), lda, o, lda, true);
+      const info = K.potrf(n, o, lda);
+      K.trsm(n, k, o, lda, o + lda * n, lda, false);
+      return [info, S.slice(o, o + len)] as const;
+    };
+    const [infoLow, low] = run(0);
+    const [infoHigh, high] = run(hi);
+    expect(infoLow).toBe(-1);
+    expect(infoHigh).toBe(-1);
+    expect(Buffer.from(high.buffer).equals(Buffer.from(low.buffer))).toBe(true);
+  });
+
   it("Node's engine accepts the wasm32 limit of 65536 pages and refuses one more", () => {
     // WebAssembly JS API: maximum above the engine's limit is a RangeError (spec); wasm32 = 4 GiB.
     expect(() => new WebAssembly.Memory({ initial: 1, maximum: WASM32_MAX_PAGES })).not.toThrow();
