@@ -81,6 +81,7 @@ describe("reverseCuthillMcKee", () => {
         const g = graphFromEdges(n, edges);
         const perm = reverseCuthillMcKee(g);
         expectPermutation(perm, n);
+        expect([...reverseCuthillMcKee(g)]).toEqual([...perm]); // deterministic
         const comp = components(g);
         const closed = new Set<number>();
         for (let k = 0; k < n; k++) {
