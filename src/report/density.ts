@@ -13,9 +13,18 @@ export interface Binning {
   readonly counts: Float64Array;
 }
 
-/** The number of cells per side for an n×n matrix: n itself up to `max`. */
+/**
+ * The number of cells per side for an n×n matrix: n itself up to `max`,
+ * beyond that ceil(n / b) for the smallest whole block size b that fits, so
+ * every cell but the last covers exactly b×b entries (no aliasing stripes).
+ */
 export function binCount(n: number, max = 400): number {
-  return Math.max(1, Math.min(n, max));
+  return Math.max(1, Math.ceil(n / blockSize(n, Math.max(1, Math.min(n, max)))));
+}
+
+/** Entries per cell side when an n×n matrix is drawn with at most `size` cells per side. */
+function blockSize(n: number, size: number): number {
+  return Math.max(1, Math.ceil(n / size));
 }
 
 /**
@@ -24,12 +33,12 @@ export function binCount(n: number, max = 400): number {
  */
 export function binSymmetric(n: number, colPtr: Int32Array, rowIdx: Int32Array, inverse: Int32Array | null, size: number): Binning {
   const counts = new Float64Array(size * size);
-  const scale = size / n;
+  const b = blockSize(n, size);
   for (let j = 0; j < n; j++) {
-    const cj = Math.floor((inverse ? inverse[j] : j) * scale);
+    const cj = Math.floor((inverse ? inverse[j] : j) / b);
     for (let p = colPtr[j]; p < colPtr[j + 1]; p++) {
       const i = rowIdx[p];
-      const ci = Math.floor((inverse ? inverse[i] : i) * scale);
+      const ci = Math.floor((inverse ? inverse[i] : i) / b);
       counts[ci * size + cj]++;
       if (i !== j) counts[cj * size + ci]++;
     }
@@ -46,7 +55,7 @@ export function binSymmetric(n: number, colPtr: Int32Array, rowIdx: Int32Array, 
  */
 export function binFactor(s: SupernodalStructure, size: number, relabel: Int32Array | null = null): Binning {
   const counts = new Float64Array(size * size);
-  const scale = size / s.n;
+  const b = blockSize(s.n, size);
   for (let k = 0; k < s.supernodeCount; k++) {
     const c0 = s.superStart[k], c1 = s.superStart[k + 1], r0 = s.rowPtr[k], r1 = s.rowPtr[k + 1];
     for (let j = c0; j < c1; j++) {
@@ -54,7 +63,7 @@ export function binFactor(s: SupernodalStructure, size: number, relabel: Int32Ar
       for (let p = r0 + (j - c0); p < r1; p++) {
         const ii = relabel ? relabel[s.rowIdx[p]] : s.rowIdx[p];
         const hi = ii > jj ? ii : jj, lo = ii > jj ? jj : ii;
-        counts[Math.floor(hi * scale) * size + Math.floor(lo * scale)]++;
+        counts[Math.floor(hi / b) * size + Math.floor(lo / b)]++;
       }
     }
   }
@@ -69,7 +78,8 @@ export function densityPixels(b: Binning): Uint8Array {
   const { n, size, counts } = b;
   const pixels = new Uint8Array(size * size);
   const span = new Float64Array(size);
-  for (let c = 0; c < size; c++) span[c] = Math.floor(((c + 1) * n) / size) - Math.floor((c * n) / size);
+  const block = blockSize(n, size);
+  for (let c = 0; c < size; c++) span[c] = Math.max(0, Math.min(block, n - c * block));
   const norm = 1 / Math.log(1000);
   for (let r = 0; r < size; r++) {
     for (let c = 0; c < size; c++) {

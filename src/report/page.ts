@@ -89,7 +89,7 @@ export function renderReport(r: ReportInput): string {
 <div class="cards">${cards}</div>
 <h2>Sparsity patterns</h2>
 <div class="panels">${panels.join("\n")}</div>
-<div class="legend"><span><i style="background:#6b9ed6"></i>entries of A (darker = denser cell)</span><span><i style="background:#f3944f"></i>entries of L</span><span><i style="background:#2e9e5b;opacity:.5"></i>zero blocks</span><span>${size < r.n ? `Binned to ${size}×${size} cells of about ${fmt(r.n / size)}×${fmt(r.n / size)} entries.` : "One cell per entry."}</span></div>
+<div class="legend"><span><i style="background:#6b9ed6"></i>entries of A (darker = denser cell)</span><span><i style="background:#f3944f"></i>entries of L</span><span><i style="background:#2e9e5b;opacity:.5"></i>zero blocks</span><span>${size < r.n ? `Binned to ${size}×${size} cells of ${Math.ceil(r.n / size)}×${Math.ceil(r.n / size)} entries.` : "One cell per entry."}</span></div>
 ${tree}
 ${extra}
 <h2>Orderings side by side</h2>
