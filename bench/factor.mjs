@@ -49,14 +49,15 @@ function kernelRate() {
   return (n * (n + 1) * n) / median(t) / 1e9;
 }
 
-function benchSparse(name, A, ordering = "nested-dissection") {
+function benchSparse(name, A, { runs = RUNS, warmups = 0, ordering = "nested-dissection" } = {}) {
   const t0 = now();
   const analysis = analyze(A, { ordering });
   const analyseSeconds = now() - t0;
   const F = analysis.factor(A, { kernels: KERNELS });
   const fs = [], ss = [];
   const b = new Float64Array(A.ncols).map((_, i) => Math.sin(i + 1));
-  for (let r = 0; r < RUNS; r++) {
+  for (let w = 0; w < warmups; w++) { F.refactor(A); F.solve(b); } // let the JIT settle on small cases
+  for (let r = 0; r < runs; r++) {
     F.refactor(A);
     fs.push(F.stats.seconds);
     const s0 = now();
@@ -74,7 +75,7 @@ function benchSparse(name, A, ordering = "nested-dissection") {
 
 function benchDense() {
   const A = gridLaplacian(50, 2), n = A.ncols;
-  const sparse = benchSparse("2-D 50² (n = 2500)", A);
+  const sparse = benchSparse("2-D 50² (n = 2500)", A, { runs: Math.max(RUNS, 9), warmups: 10 });
   const M = new Matrix(n, n);
   for (let j = 0; j < n; j++) for (let p = A.colPtr[j]; p < A.colPtr[j + 1]; p++) {
     M.set(A.rowIdx[p], j, A.values[p]); M.set(j, A.rowIdx[p], A.values[p]);
