@@ -1,5 +1,7 @@
 import { describe, expect, it } from "vitest";
+import fc from "fast-check";
 import { CholeskyDecomposition, Matrix } from "ml-matrix";
+import { InputError } from "../src/errors.js";
 import { meshPlate } from "../src/fem/mesh.js";
 import { assembleP1, expandSolution, type Triplets } from "../src/fem/p1.js";
 import { convergenceStudy, l2Error } from "../src/fem/manufactured.js";
@@ -57,5 +59,75 @@ describe("P1 manufactured solution", () => {
     const sys = assembleP1(mesh, { kappa: 1, source: () => 0, dirichlet: (v, x, y) => (mesh.holeOf[v] >= 0 || onRim(x, y) ? u(x, y) : undefined) });
     const uh = expandSolution(sys, denseSolve(sys.matrix, sys.rhs));
     expect(l2Error(mesh, uh, u)).toBeLessThan(1e-12);
+  });
+});
+
+describe("mesher and assembly properties (fast-check)", () => {
+  /** Random plates with up to three holes; specs the mesher refuses are skipped. */
+  const plates = fc.record({
+    width: fc.double({ min: 0.5, max: 2, noNaN: true }),
+    height: fc.double({ min: 0.5, max: 2, noNaN: true }),
+    h: fc.double({ min: 0.03, max: 0.08, noNaN: true }),
+    holes: fc.array(fc.record({ fx: fc.double({ min: 0.2, max: 0.8, noNaN: true }), fy: fc.double({ min: 0.2, max: 0.8, noNaN: true }), fr: fc.double({ min: 0.05, max: 0.2, noNaN: true }) }), { maxLength: 3 }),
+  }).map((p) => ({
+    width: p.width, height: p.height, h: p.h,
+    holes: p.holes.map((o) => ({ x: o.fx * p.width, y: o.fy * p.height, r: o.fr * Math.min(p.width, p.height) })),
+  }));
+
+  it("every edge is shared by two triangles or lies on the rim or on a circle; areas are positive and add up", () => {
+    let withHoles = 0;
+    fc.assert(fc.property(plates, (spec) => {
+      let mesh;
+      try { mesh = meshPlate(spec); } catch (e) { if (e instanceof InputError) return; throw e; }
+      if (spec.holes.length > 0) withHoles++;
+      const xy = mesh.coords, T = mesh.triangles;
+      const edges = new Map<string, number>();
+      let area = 0;
+      for (let t = 0; t < T.length; t += 3) {
+        const [i, j, k] = [T[t], T[t + 1], T[t + 2]];
+        const a = ((xy[2 * j] - xy[2 * i]) * (xy[2 * k + 1] - xy[2 * i + 1]) - (xy[2 * k] - xy[2 * i]) * (xy[2 * j + 1] - xy[2 * i + 1])) / 2;
+        expect(a).toBeGreaterThan(0);
+        area += a;
+        for (const [p, q] of [[i, j], [j, k], [k, i]]) {
+          const key = `${Math.min(p, q)},${Math.max(p, q)}`;
+          edges.set(key, (edges.get(key) ?? 0) + 1);
+        }
+      }
+      const onRim = (v: number) => Math.min(xy[2 * v], xy[2 * v + 1], spec.width - xy[2 * v], spec.height - xy[2 * v + 1]) < 1e-9;
+      for (const [key, count] of edges) {
+        expect(count).toBeLessThanOrEqual(2);
+        if (count === 2) continue;
+        const [p, q] = key.split(",").map(Number);
+        // a boundary edge: both ends on the rim, or both on the same circle
+        expect((onRim(p) && onRim(q)) || (mesh.holeOf[p] >= 0 && mesh.holeOf[p] === mesh.holeOf[q])).toBe(true);
+      }
+      // closed form: rectangle minus disks, up to the chord error of the circles (≤ perimeter × (edge length)² / (8 r))
+      const exact = spec.width * spec.height - spec.holes.reduce((s, o) => s + Math.PI * o.r * o.r, 0);
+      const chord = spec.holes.reduce((s, o) => s + (2 * Math.PI * o.r * (2 * spec.h) ** 2) / (8 * o.r), 0);
+      expect(Math.abs(area - exact)).toBeLessThanOrEqual(chord + 1e-9);
+    }), { numRuns: 40 });
+    expect(withHoles).toBeGreaterThan(10); // the property did meet holes
+  });
+
+  it("without Dirichlet nodes the P1 stiffness is symmetric and annihilates constants (common practice)", () => {
+    fc.assert(fc.property(plates, fc.double({ min: 0.1, max: 10, noNaN: true }), (spec, kappa) => {
+      let mesh;
+      try { mesh = meshPlate(spec); } catch (e) { if (e instanceof InputError) return; throw e; }
+      const sys = assembleP1(mesh, { kappa, source: () => 0, dirichlet: () => undefined });
+      const { n, rows, cols, values } = sys.matrix;
+      const rowSum = new Float64Array(n), sym = new Map<string, number>();
+      let scale = 0;
+      for (let e = 0; e < rows.length; e++) {
+        rowSum[rows[e]] += values[e];
+        scale = Math.max(scale, Math.abs(values[e]));
+        const key = `${rows[e]},${cols[e]}`;
+        sym.set(key, (sym.get(key) ?? 0) + values[e]);
+      }
+      for (const s of rowSum) expect(Math.abs(s)).toBeLessThan(64 * Number.EPSILON * scale);
+      for (const [key, v] of sym) {
+        const [i, j] = key.split(",");
+        expect(sym.get(`${j},${i}`)).toBe(v);
+      }
+    }), { numRuns: 25 });
   });
 });
