@@ -15,7 +15,7 @@ import { assembleP1, heatBalance, expandSolution, type P1Problem, type Triplets 
 import { fieldSvg } from "../report/field.js";
 import { renderReport } from "../report/page.js";
 import { ORDERINGS, numberOption, type Parsed } from "./options.js";
-import { progressLine } from "./progress.js";
+import { progressLine, type ProgressLine } from "./progress.js";
 import { writeText } from "./files.js";
 import { reportInput } from "./report.js";
 import type { Analysed } from "./analyze.js";
@@ -41,21 +41,18 @@ export function directSolve(t: Triplets, b: Float64Array): Float64Array {
   return analyze(A, { ordering: "nested-dissection" }).factor(A).solve(b);
 }
 
-export function demoCommand(io: CliIO, p: Parsed): number {
-  const dir = String(p.values.output ?? "septum-demo");
-  const h = numberOption("size", p.values.size, 1.5, 0.3, 6, false) / 1000;
-  const line = progressLine(io, io.stderrIsTTY && !p.values.quiet);
-  const say = (s: string) => io.stdout(s);
-  const P = BATTERY_PLATE;
-  say(`septum demo — steady heat conduction in a battery cooling plate
+const INTRO = (P: typeof BATTERY_PLATE) => `septum demo — steady heat conduction in a battery cooling plate
 ILLUSTRATIVE SCENARIO WITH INVENTED DATA: not a model of any real product; a small
 residual does not validate a model. Results that feed design decisions must be checked
 by qualified people under local codes and licensed practice.
 
 Plate ${P.width * 1000} × ${P.height * 1000} mm, ${P.thickness * 1000} mm aluminium (k = ${P.conductivity} W/(m·K)), ${P.cells.length} cells
 (${P.cells.reduce((s, c) => s + c.watts, 0)} W in total), ${P.channels.length} coolant channels held at ${P.coolantTemperature} °C, rim insulated.
-`);
-  const t0 = io.now();
+`;
+
+/** The plate meshed at spacing h, its P1 system, and the coordinates of the unknowns. */
+function plateSystem(h: number) {
+  const P = BATTERY_PLATE;
   const mesh = meshPlate(batteryPlate(h));
   const problem: P1Problem = {
     kappa: P.conductivity * P.thickness,
@@ -64,59 +61,95 @@ Plate ${P.width * 1000} × ${P.height * 1000} mm, ${P.thickness * 1000} mm alumi
   };
   const system = assembleP1(mesh, problem);
   const A = lowerMatrix(system.matrix);
-  say(`Mesh: ${num(mesh.nodeCount)} nodes, ${num(mesh.triangles.length / 3)} triangles (h = ${(h * 1000).toFixed(2)} mm); ${num(A.ncols)} unknowns after the channel nodes are eliminated  [${secs(io.now() - t0)}]\n\n`);
-
   // node coordinates of the unknowns: nested dissection uses them to seed its cuts
   const coordinates = new Float64Array(2 * A.ncols);
   for (let i = 0; i < A.ncols; i++) coordinates.set(mesh.coords.subarray(2 * system.nodeOf[i], 2 * system.nodeOf[i] + 2), 2 * i);
+  return { mesh, problem, system, A, coordinates };
+}
+
+/** Analyze, factor and solve with every ordering; returns the nested-dissection solution too. */
+function solveEveryWay(io: CliIO, A: SparseMatrix, b: Float64Array, coordinates: Float64Array, line: ProgressLine) {
   const list: Analysed[] = [], factorSeconds: number[] = [];
-  let u: Float64Array = new Float64Array(0);
+  let x: Float64Array = new Float64Array(0);
   for (const ordering of ORDERINGS) {
+    const label = ordering.split("-")[0];
     const ta = io.now();
-    const analysis = analyze(A, { ordering, coordinates, onProgress: (q) => line.update(`${ordering.split("-")[0]} ${q.phase}`, q.fraction) });
+    const analysis = analyze(A, { ordering, coordinates, onProgress: (q) => line.update(`${label} ${q.phase}`, q.fraction) });
     const tb = io.now();
-    const F = analysis.factor(A, { onProgress: (q) => line.update(`${ordering.split("-")[0]} factor`, q.fraction) });
+    const F = analysis.factor(A, { onProgress: (q) => line.update(`${label} factor`, q.fraction) });
     const tc = io.now();
-    const x = F.solve(system.rhs);
+    const xo = F.solve(b);
+    checkResidual(A, xo, b, ordering);
     list.push({ ordering, analysis, seconds: tb - ta });
     factorSeconds.push(tc - tb);
-    if (ordering === "nested-dissection") u = expandSolution(system, x);
-    checkResidual(A, x, system.rhs, ordering);
+    if (ordering === "nested-dissection") x = xo;
   }
   line.done();
-  say(`Every ordering solves the same system; they differ in fill and work:\n${compareTable(list, factorSeconds)}\n`);
+  return { list, factorSeconds, x };
+}
 
-  const { load, outflow } = heatBalance(mesh, problem, system, u);
-  const total = P.cells.reduce((s, c) => s + c.watts, 0);
-  let hot = 0;
-  for (let v = 0; v < u.length; v++) if (u[v] > u[hot]) hot = v;
-  say(`Temperature: ${u.reduce((a, b) => Math.min(a, b)).toFixed(2)} … ${u[hot].toFixed(2)} °C, hottest at (${(mesh.coords[2 * hot] * 1000).toFixed(0)}, ${(mesh.coords[2 * hot + 1] * 1000).toFixed(0)}) mm.
+/** Hottest point and heat balance, as text. */
+function temperatureSummary(plate: ReturnType<typeof plateSystem>, u: Float64Array): string {
+  const { load, outflow } = heatBalance(plate.mesh, plate.problem, plate.system, u);
+  const total = BATTERY_PLATE.cells.reduce((s, c) => s + c.watts, 0);
+  let hot = 0, cold = 0;
+  for (let v = 0; v < u.length; v++) { if (u[v] > u[hot]) hot = v; if (u[v] < u[cold]) cold = v; }
+  const xy = plate.mesh.coords;
+  return `Temperature: ${u[cold].toFixed(2)} … ${u[hot].toFixed(2)} °C, hottest at (${(xy[2 * hot] * 1000).toFixed(0)}, ${(xy[2 * hot + 1] * 1000).toFixed(0)}) mm.
 Heat balance: ${load.toFixed(3)} W deposited (nominal ${total} W; the patch edges cut through triangles), ${outflow.toFixed(3)} W leave through the channels (relative gap ${sci(Math.abs(outflow - load) / load)}).
 
-`);
-  const study = convergenceStudy({ ...batteryPlate(0.006) }, P.conductivity * P.thickness, 3, directSolve);
-  say(`Verification (manufactured solution u = cos(πx/W)·cos(πy/H), same plate and channels;
-P1 elements should converge as O(h²) in L2 — common practice):
-${table(["h (mm)", "unknowns", "L2 error", "rate"], study.map((l) => [(l.h * 1000).toFixed(2), num(l.unknowns), sci(l.error), Number.isNaN(l.rate) ? "" : l.rate.toFixed(2)]))}
-`);
+`;
+}
 
-  const picture = fieldSvg({
-    coords: mesh.coords, triangles: mesh.triangles, values: u, width: P.width, height: P.height,
+/** The manufactured-solution study as terminal text and as an HTML table. */
+function verification() {
+  const P = BATTERY_PLATE;
+  const study = convergenceStudy(batteryPlate(0.006), P.conductivity * P.thickness, 3, directSolve);
+  const cells = study.map((l) => [(l.h * 1000).toFixed(2), num(l.unknowns), sci(l.error), Number.isNaN(l.rate) ? "" : l.rate.toFixed(2)]);
+  const text = `Verification (manufactured solution u = cos(πx/W)·cos(πy/H), same plate and channels;
+P1 elements should converge as O(h²) in L2 — common practice):
+${table(["h (mm)", "unknowns", "L2 error", "rate"], cells)}
+`;
+  const rows = cells.map((r) => `<tr>${r.map((c) => `<td class="num">${c}</td>`).join("")}</tr>`).join("");
+  const html = `<table class="cmp" style="width:auto"><thead><tr><th class="num">h (mm)</th><th class="num">unknowns</th><th class="num">L2 error</th><th class="num">observed rate</th></tr></thead><tbody>${rows}</tbody></table>
+<p class="note">Manufactured solution u = cos(πx/W)·cos(πy/H) on the same plate and channels; P1 elements converge as O(h²) in L2 (common practice), so the rate should be close to 2.</p>`;
+  return { text, html };
+}
+
+/** The temperature picture: the field, the cell patches and the channels. */
+function temperaturePicture(plate: ReturnType<typeof plateSystem>, u: Float64Array): string {
+  const P = BATTERY_PLATE;
+  return fieldSvg({
+    coords: plate.mesh.coords, triangles: plate.mesh.triangles, values: u, width: P.width, height: P.height,
     title: "Temperature of the cooling plate (illustrative scenario, invented data)", unit: "°C",
     boxes: P.cells.map((c, i) => ({ x: c.x, y: c.y, w: c.w, h: c.h, label: `cell ${i + 1}: ${c.watts} W` })),
     circles: P.channels,
   });
+}
+
+export function demoCommand(io: CliIO, p: Parsed): number {
+  const dir = String(p.values.output ?? "septum-demo");
+  const h = numberOption("size", p.values.size, 1.5, 0.3, 6, false) / 1000;
+  const line = progressLine(io, io.stderrIsTTY && !p.values.quiet);
+  io.stdout(INTRO(BATTERY_PLATE));
+  const t0 = io.now();
+  const plate = plateSystem(h);
+  const { mesh, A } = plate;
+  io.stdout(`Mesh: ${num(mesh.nodeCount)} nodes, ${num(mesh.triangles.length / 3)} triangles (h = ${(h * 1000).toFixed(2)} mm); ${num(A.ncols)} unknowns after the channel nodes are eliminated  [${secs(io.now() - t0)}]\n\n`);
+  const solved = solveEveryWay(io, A, plate.system.rhs, plate.coordinates, line);
+  io.stdout(`Every ordering solves the same system; they differ in fill and work:\n${compareTable(solved.list, solved.factorSeconds)}\n`);
+  const u = expandSolution(plate.system, solved.x);
+  io.stdout(temperatureSummary(plate, u));
+  const check = verification();
+  io.stdout(check.text);
+  const picture = temperaturePicture(plate, u);
   writeText(io, `${dir}/temperature.svg`, picture);
-  const input = reportInput("septum demo: battery cooling plate", `P1 stiffness matrix of the plate mesh, n = ${A.ncols} (illustrative scenario, invented data)`, A, list, "nested-dissection", factorSeconds);
-  const rows = study.map((l) => `<tr><td class="num">${(l.h * 1000).toFixed(2)}</td><td class="num">${num(l.unknowns)}</td><td class="num">${sci(l.error)}</td><td class="num">${Number.isNaN(l.rate) ? "" : l.rate.toFixed(2)}</td></tr>`).join("");
-  const verification = `<table class="cmp" style="width:auto"><thead><tr><th class="num">h (mm)</th><th class="num">unknowns</th><th class="num">L2 error</th><th class="num">observed rate</th></tr></thead><tbody>${rows}</tbody></table>
-<p class="note">Manufactured solution u = cos(πx/W)·cos(πy/H) on the same plate and channels; P1 elements converge as O(h²) in L2 (common practice), so the rate should be close to 2.</p>`;
-  const html = renderReport({ ...input, extraSections: [
+  const input = reportInput("septum demo: battery cooling plate", `P1 stiffness matrix of the plate mesh, n = ${A.ncols} (illustrative scenario, invented data)`, A, solved.list, "nested-dissection", solved.factorSeconds);
+  writeText(io, `${dir}/report.html`, renderReport({ ...input, extraSections: [
     { title: "Temperature field (illustrative scenario, invented data)", html: picture },
-    { title: "Verification of the discretization", html: verification },
-  ] });
-  writeText(io, `${dir}/report.html`, html);
-  say(`Wrote ${dir}/report.html and ${dir}/temperature.svg  [total ${secs(io.now() - t0)}]\n`);
+    { title: "Verification of the discretization", html: check.html },
+  ] }));
+  io.stdout(`Wrote ${dir}/report.html and ${dir}/temperature.svg  [total ${secs(io.now() - t0)}]\n`);
   return 0;
 }
 
