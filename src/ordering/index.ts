@@ -25,6 +25,12 @@ export interface OrderingOptions {
   seed?: number;
   /** Node coordinates (2 or 3 values per vertex) for coordinate bisection inside nested dissection. */
   coordinates?: Float64Array;
+  /**
+   * With coordinates: "refine" (default) refines each coordinate cut and keeps
+   * the lighter of it and the multilevel separator; "plain" uses the coordinate
+   * cut's boundary as is (fastest); "ignore" disregards the coordinates.
+   */
+  coordinateMode?: "refine" | "plain" | "ignore";
   signal?: AbortSignal;
   onProgress?: (fraction: number) => void;
 }
@@ -63,8 +69,14 @@ function identity(n: number): Int32Array {
 /** Nested dissection, on the compressed graph when compression pays. */
 function dissect(g: Graph, options: OrderingOptions): OrderingResult {
   const coordinates = options.coordinates ? validateCoordinates(options.coordinates, g.n) : undefined;
+  const mode = options.coordinateMode;
+  if (mode !== undefined && mode !== "refine" && mode !== "plain" && mode !== "ignore") {
+    throw new InputError(`coordinateMode must be "refine", "plain" or "ignore", got ${String(mode)}`);
+  }
   const orderLeaf = (leaf: Graph): Int32Array => minimumDegreeTrusted(leaf, Infinity, true);
-  const common = { orderLeaf, seed: options.seed, signal: options.signal, onProgress: options.onProgress };
+  const common = {
+    orderLeaf, seed: options.seed, signal: options.signal, onProgress: options.onProgress, coordinateMode: options.coordinateMode,
+  };
   const c = g.n > DISSECTION_THRESHOLD ? compressGraph(g) : null;
   if (c === null || c.graph.n > COMPRESSION_RATIO * g.n) return nestedDissection(g, { ...common, coordinates });
   const r = nestedDissection(c.graph, {

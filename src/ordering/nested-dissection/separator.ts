@@ -14,7 +14,8 @@ export const SEPARATOR = 2;
 
 /**
  * Turns a 2-way labelling into a vertex separator in place (label 2), choosing
- * the lightest of the König cover and the two one-sided boundaries.
+ * the lightest of the König cover and the two one-sided boundaries (a boundary
+ * on a tie: it keeps the parts' shapes simple).
  */
 export function vertexSeparatorFromCut(g: WGraph, label: Int8Array): void {
   const n = g.n;
@@ -33,7 +34,7 @@ export function vertexSeparatorFromCut(g: WGraph, label: Int8Array): void {
   const cover = minimumCover(g, label, boundary);
   let wc = 0;
   for (const v of cover) wc += g.vwgt[v];
-  if (wc <= w0 && wc <= w1) for (const v of cover) label[v] = SEPARATOR;
+  if (wc < w0 && wc < w1) for (const v of cover) label[v] = SEPARATOR;
   else {
     const side = w0 <= w1 ? 0 : 1;
     for (const v of boundary) if (label[v] === side) label[v] = SEPARATOR;
