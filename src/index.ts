@@ -41,3 +41,4 @@ export type {
 } from "./matrix/market.js";
 export { minimumDegree, type MinimumDegreeOptions } from "./ordering/minimum-degree.js";
 export { reverseCuthillMcKee } from "./ordering/rcm.js";
+export { computeOrdering, type OrderingOptions, type OrderingChoice } from "./ordering/index.js";
