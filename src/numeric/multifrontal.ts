@@ -59,6 +59,8 @@ export function multifrontal(p: FrontalPass): PivotFailure | null {
     const s = order[k];
     // The children's blocks are the topmost ones, the first child's lowest.
     const base = childPtr[s] < childPtr[s + 1] ? p.cbOffset[children[childPtr[s]]] : top;
+    // Typed arrays drop out-of-range writes silently: guard the predicted bound.
+    if (top + cbDoubles(st, s) > p.scratch) throw new Error(`internal: contribution stack exceeds its prediction at supernode ${s}`);
     const fail = factorFront(p, s, top);
     if (fail) return fail;
     // Slide s's block down over its children's (stack pop + push).
