@@ -95,7 +95,17 @@ function temperatureSummary(plate: ReturnType<typeof plateSystem>, u: Float64Arr
   let hot = 0, cold = 0;
   for (let v = 0; v < u.length; v++) { if (u[v] > u[hot]) hot = v; if (u[v] < u[cold]) cold = v; }
   const xy = plate.mesh.coords;
+  const cellMax = BATTERY_PLATE.cells.map((c) => {
+    let m = -Infinity;
+    for (let v = 0; v < u.length; v++) {
+      const x = xy[2 * v], y = xy[2 * v + 1];
+      if (x >= c.x && x <= c.x + c.w && y >= c.y && y <= c.y + c.h) m = Math.max(m, u[v]);
+    }
+    return m;
+  });
+  const perCell = cellMax.map((m, i) => `cell ${i + 1} ${m.toFixed(1)}`).join(", ");
   return `Temperature: ${u[cold].toFixed(2)} … ${u[hot].toFixed(2)} °C, hottest at (${(xy[2 * hot] * 1000).toFixed(0)}, ${(xy[2 * hot + 1] * 1000).toFixed(0)}) mm.
+Hottest point under each cell (°C): ${perCell}.
 Heat balance: ${load.toFixed(3)} W deposited (nominal ${total} W; the patch edges cut through triangles), ${outflow.toFixed(3)} W leave through the channels (relative gap ${sci(Math.abs(outflow - load) / load)}).
 
 `;
