@@ -42,3 +42,10 @@ export type {
 export { minimumDegree, type MinimumDegreeOptions } from "./ordering/minimum-degree.js";
 export { reverseCuthillMcKee } from "./ordering/rcm.js";
 export { computeOrdering, type OrderingOptions, type OrderingChoice } from "./ordering/index.js";
+export { grid2d, grid3d, type ModelProblem } from "./generate/grids.js";
+export { elasticity3d } from "./generate/elasticity.js";
+export { plateMesh2d } from "./generate/plate.js";
+export { geometricLaplacian } from "./generate/graphs.js";
+export { saddle2d } from "./generate/saddle.js";
+export { renderReport } from "./report/page.js";
+export type { ReportInput, ReportOrdering, OrderingFigures } from "./report/types.js";

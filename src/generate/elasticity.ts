@@ -48,7 +48,10 @@ export function hexStiffness(s: number, E: number, nu: number): Float64Array {
   return ke;
 }
 
-/** The clamped elastic cube: n = 3·k·(k+1)² unknowns. */
+/**
+ * Linear elasticity of the unit cube on k×k×k trilinear bricks, clamped on
+ * x = 0: three displacement unknowns per free node, n = 3·k·(k+1)², lower triangle.
+ */
 export function elasticity3d(k: number, E = 1, nu = 0.3): ModelProblem {
   checkSize("elasticity3d size", k, 1, 80);
   const m = k + 1;

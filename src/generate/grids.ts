@@ -52,7 +52,12 @@ export class LowerTriplets {
   }
 }
 
-/** k×k interior grid with the 5-point or 9-point stencil. */
+/**
+ * The Laplacian on a k×k interior grid (Dirichlet boundary eliminated), lower
+ * triangle: `stencil` 5 gives the finite-difference 5-point matrix (diag 4,
+ * neighbours −1), 9 the bilinear finite-element matrix (diag 8/3, all eight
+ * neighbours −1/3). Coordinates are the grid points.
+ */
 export function grid2d(k: number, stencil: 5 | 9 = 5): ModelProblem {
   checkSize("grid2d size", k, 1, 4000);
   const t = new LowerTriplets();
@@ -77,7 +82,7 @@ export function grid2d(k: number, stencil: 5 | 9 = 5): ModelProblem {
   };
 }
 
-/** k×k×k interior grid with the 7-point stencil. */
+/** The 7-point Laplacian on a k×k×k interior grid (diag 6, neighbours −1), lower triangle, with grid coordinates. */
 export function grid3d(k: number): ModelProblem {
   checkSize("grid3d size", k, 1, 250);
   const t = new LowerTriplets();

@@ -43,7 +43,12 @@ table.cmp{border-collapse:collapse;width:100%;font-variant-numeric:tabular-nums;
 footer{margin-top:36px;color:var(--mute);font-size:12px}
 `;
 
-/** Render the complete HTML page. */
+/**
+ * Render the report as one self-contained HTML document (inline CSS and SVG,
+ * images as embedded PNG data URLs, no scripts, no external assets). A pure
+ * function of its input with no Node-only imports, so it also runs in a
+ * browser. Matrices larger than 400 rows are drawn binned.
+ */
 export function renderReport(r: ReportInput): string {
   const shown = r.orderings[r.shown];
   const size = binCount(r.n);
