@@ -138,6 +138,17 @@ describe("separator drawings", () => {
     expect(lower).not.toContain('x="3" y="0"');
   });
 
+  it("counts small disconnected pieces instead of drawing them", () => {
+    // three one-vertex components and one big leaf component of a 1000-vertex graph
+    const pieces: SeparatorTree = {
+      count: 4, first: Int32Array.from([0, 1, 2, 3]), separatorFirst: Int32Array.from([1, 2, 3, 1000]),
+      end: Int32Array.from([1, 2, 3, 1000]), parent: Int32Array.from([-1, -1, -1, -1]),
+    };
+    const svg = separatorTreeSvg(pieces, 1000, 600);
+    expect(svg).toContain("3 small disconnected pieces (3 unknowns) not drawn");
+    expect((svg.match(/<rect/g) ?? []).length).toBe(1);
+  });
+
   it("draws one disc per separator and one square per leaf", () => {
     const svg = separatorTreeSvg(tree, 7, 600);
     expect((svg.match(/<circle/g) ?? []).length).toBe(1);

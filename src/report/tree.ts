@@ -2,7 +2,8 @@
  * The separator tree drawn as a tree: each node sits above the middle of the
  * index range it covers (so the drawing lines up with the matrix panels),
  * one row per depth, disc area proportional to the separator's size; deep
- * subtrees are folded into a small wedge labelled with their node count.
+ * subtrees are folded into a small wedge labelled with their node count;
+ * small disconnected pieces ordered whole are counted instead of drawn.
  */
 import type { SeparatorTree } from "../ordering/types.js";
 import { depthColour, esc, fmt, treeChildren, treeDepths } from "./svg.js";
@@ -22,8 +23,13 @@ export function separatorTreeSvg(t: SeparatorTree, n: number, width: number, max
   const edges: string[] = [], nodes: string[] = [], folds: string[] = [];
   const subtreeSize = new Int32Array(t.count).fill(1);
   for (let i = 0; i < t.count; i++) if (t.parent[i] >= 0) subtreeSize[t.parent[i]] += subtreeSize[i];
+  let small = 0, smallSize = 0;
   for (let i = 0; i < t.count; i++) {
     if (depth[i] > maxDepth) continue;
+    if (t.parent[i] < 0 && ch[i].length === 0 && ((t.end[i] - t.first[i]) * (width - 2 * m)) / n < 6) {
+      small++; smallSize += t.end[i] - t.first[i]; // a small piece ordered whole: counted, not drawn
+      continue;
+    }
     if (t.parent[i] >= 0) {
       edges.push(`<line x1="${x(t.parent[i]).toFixed(1)}" y1="${y(t.parent[i])}" x2="${x(i).toFixed(1)}" y2="${y(i)}"/>`);
     }
@@ -42,6 +48,7 @@ export function separatorTreeSvg(t: SeparatorTree, n: number, width: number, max
       folds.push(`<path d="M${cx.toFixed(1)},${cy} l-6,14 h12 z" fill="#d6dde6"><title>${subtreeSize[i] - 1} more nodes below</title></path>`);
     }
   }
+  const note = small > 0 ? `<text x="${m}" y="${height + 8}" class="tlabel">${fmt(small)} small disconnected piece${small === 1 ? "" : "s"} (${fmt(smallSize)} unknowns) not drawn</text>` : "";
   return `<svg viewBox="0 0 ${width} ${height + 14}" width="${width}" height="${height + 14}" role="img" aria-label="separator tree">
-<g class="tedges">${edges.join("")}</g>${folds.join("")}${nodes.join("\n")}</svg>`;
+<g class="tedges">${edges.join("")}</g>${folds.join("")}${nodes.join("\n")}${note}</svg>`;
 }
