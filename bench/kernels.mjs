@@ -1,6 +1,6 @@
 // Dense kernel rates, WebAssembly SIMD vs plain JS, and (when the numeric
 // factorization is built) whole factorizations of 3-D grids with both sets.
-// Run: npm run build && node bench/kernels.mjs [--sizes 64,128,256,512] [--grids 30,50] [--runs 5]
+// Run: npm run build && node bench/kernels.mjs [--sizes 64,128,256,512] [--grids 30,50] [--runs 5] [--js no]
 // With `node --experimental-wasm-relaxed-simd bench/kernels.mjs` (Node 20) the
 // wasm set runs its fused-multiply-add build; the header line says which.
 // All ratios come from the same run. Time is the process's CPU time
@@ -18,6 +18,7 @@ const arg = (name, dflt) => {
 const sizes = arg("sizes", "64,128,256,512").split(",").map(Number);
 const grids = arg("grids", "30,50").split(",").filter(Boolean).map(Number);
 const runs = Number(arg("runs", "5"));
+const withJs = arg("js", "yes") !== "no"; // --js no: wasm only (the ratios then are not printed)
 
 function fill(S, len, seed) {
   let s = seed | 0 || 1;
@@ -74,7 +75,7 @@ console.log(`dense kernels, GF/s (median of ${runs} samples, CPU time), node ${p
 const rows = [];
 for (const n of sizes) {
   const w = kernelRates(getKernels("wasm"), n);
-  const j = kernelRates(getKernels("js"), n);
+  const j = withJs ? kernelRates(getKernels("js"), n) : { gemm: NaN, syrk: NaN, potrf: NaN };
   rows.push({ n, wasm: w, js: j });
   console.log(
     `n=${String(n).padStart(4)}  wasm gemm ${w.gemm.toFixed(1).padStart(5)}  syrk ${w.syrk.toFixed(1).padStart(5)}` +
@@ -92,7 +93,7 @@ for (const k of grids) {
   const st = analysis.stats;
   const res = {};
   // the JS run is slow on big grids: fewer samples there
-  for (const name of ["wasm", "js"]) {
+  for (const name of withJs ? ["wasm", "js"] : ["wasm"]) {
     const times = [];
     const reps = k >= 50 && name === "js" ? Math.min(runs, 2) : Math.min(runs, 3);
     for (let r = 0; r < reps; r++) {
@@ -105,6 +106,6 @@ for (const k of grids) {
   const gfW = st.flops / res.wasm / 1e9, gfJ = st.flops / res.js / 1e9;
   console.log(
     `grid ${k}^3: n=${st.n} nnzL=${st.nnzL} flops=${st.flops.toExponential(2)} analyze ${tAnalyze.toFixed(2)} s | ` +
-    `factor wasm ${res.wasm.toFixed(2)} s (${gfW.toFixed(1)} GF/s)  js ${res.js.toFixed(2)} s (${gfJ.toFixed(1)} GF/s) | ` +
+    `factor wasm ${res.wasm.toFixed(2)} s (${gfW.toFixed(1)} GF/s)  js ${res.js?.toFixed(2)} s (${gfJ.toFixed(1)} GF/s) | ` +
     `wasm/js ${(res.js / res.wasm).toFixed(2)}x  factor ÷ wasm syrk(${micro.n}) ${(gfW / micro.wasm.syrk).toFixed(2)}`);
 }

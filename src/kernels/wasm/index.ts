@@ -9,9 +9,9 @@
  * Float64Array returned by `reserve`/`view`) starts at byte 1638400, and
  * store offset x is byte address 1638400 + 8x.
  *
- * Capacity: wasm32 memory has at most 65536 pages of 64 KiB (4 GiB), which
- * Node 20's V8 grants (`new WebAssembly.Memory({ initial: 1, maximum: 65536 })`
- * is accepted, 65537 is a RangeError), so a store of up to
+ * Capacity: wasm32 memory has at most 65536 pages of 64 KiB (4 GiB), and
+ * Node 20's V8 allows all of them (`new WebAssembly.Memory({ initial: 1,
+ * maximum: 65536 })` is accepted, 65537 is a RangeError; tested), so a store of up to
  * (2^32 − 1638400) / 8 ≈ 536.7 million doubles fits. `reserve` computes the pages
  * a request needs before growing and throws CapacityError naming the bytes
  * requested and the page limit when it is beyond; a grow that the engine or
