@@ -90,7 +90,7 @@ export function contract(g: WGraph, match: Int32Array): Level {
     }
     xadj[++c] = k;
   }
-  const graph: WGraph = { n: nc, xadj, adj: adj.slice(0, k), ewgt: ewgt.slice(0, k), vwgt, totalWeight: g.totalWeight };
+  const graph: WGraph = { n: nc, xadj, adj: adj.subarray(0, k), ewgt: ewgt.subarray(0, k), vwgt, totalWeight: g.totalWeight };
   return { graph, coarseOf };
 }
 

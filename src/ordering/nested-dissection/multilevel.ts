@@ -5,7 +5,7 @@
  * level with FM refinement, then turn the edge cut into a vertex separator.
  */
 import { initialBisection } from "./bisect.js";
-import { coarsen } from "./coarsen.js";
+import { coarsen, type Level } from "./coarsen.js";
 import { evaluate, refineBisection, type Bisection, type FmWork } from "./refine.js";
 import type { Rng } from "./rng.js";
 import { vertexSeparatorFromCut } from "./separator.js";
@@ -51,11 +51,15 @@ function triesFor(g: WGraph, o: BisectOptions): number {
   return g.n >= 20000 ? o.tries : g.n >= 2000 ? Math.min(o.tries, 3) : Math.min(o.tries, 2);
 }
 
-/** Multilevel edge bisection of g, refined at every level. */
-export function multilevelBisection(g: WGraph, rng: Rng, o: BisectOptions, work: FmWork): Bisection {
-  const levels = coarsen(g, rng, o.coarsestSize);
+/** Edge bisection of the coarsest graph of the hierarchy (g itself when there is none). */
+function coarsestBisection(g: WGraph, levels: Level[], rng: Rng, o: BisectOptions, work: FmWork): Bisection {
   const coarsest = levels.length > 0 ? levels[levels.length - 1].graph : g;
-  let b = initialBisection(coarsest, rng, triesFor(g, o), partBound(coarsest, o.imbalance), work);
+  return initialBisection(coarsest, rng, triesFor(g, o), partBound(coarsest, o.imbalance), work);
+}
+
+/** Projects an edge bisection of the coarsest graph back to g with FM refinement at every level. */
+function uncoarsenBisection(g: WGraph, levels: Level[], start: Bisection, o: BisectOptions, work: FmWork): Bisection {
+  let b = start;
   for (let i = levels.length - 1; i >= 0; i--) {
     const fine = i > 0 ? levels[i - 1].graph : g;
     const coarseOf = levels[i].coarseOf;
@@ -65,6 +69,12 @@ export function multilevelBisection(g: WGraph, rng: Rng, o: BisectOptions, work:
     refineBisection(fine, b, partBound(fine, o.imbalance), o.passes, work);
   }
   return b;
+}
+
+/** Multilevel edge bisection of g, refined at every level. */
+export function multilevelBisection(g: WGraph, rng: Rng, o: BisectOptions, work: FmWork): Bisection {
+  const levels = coarsen(g, rng, o.coarsestSize);
+  return uncoarsenBisection(g, levels, coarsestBisection(g, levels, rng, o, work), o, work);
 }
 
 /** Refines a given 2-way labelling of g (for example a coordinate cut) with FM at one level. */
@@ -84,16 +94,20 @@ export function separate(g: WGraph, b: Bisection, o: BisectOptions, work: FmWork
   return label;
 }
 
-/** Multilevel vertex separator of g (labels 0 / 1 / 2). */
+/**
+ * Multilevel vertex separator of g (labels 0 / 1 / 2). "both" shares the
+ * hierarchy and the coarsest bisection between its two refinement paths.
+ */
 export function multilevelSeparator(g: WGraph, rng: Rng, o: BisectOptions, work: FmWork): Int8Array {
-  if (o.separatorRefinement === "both") {
-    const a = separatorByLevels(g, rng, o, work);
-    if (g.n < o.bothAbove) return a;
-    const b = separate(g, multilevelBisection(g, rng, o, work), o, work);
-    return lighter(g, a, b);
+  const levels = coarsen(g, rng, o.coarsestSize);
+  const start = coarsestBisection(g, levels, rng, o, work);
+  if (o.separatorRefinement === "finest" || o.separatorRefinement === "none") {
+    return separate(g, uncoarsenBisection(g, levels, start, o, work), o, work);
   }
-  if (o.separatorRefinement === "all") return separatorByLevels(g, rng, o, work);
-  return separate(g, multilevelBisection(g, rng, o, work), o, work);
+  const copy: Bisection = { label: start.label.slice(), weight: [start.weight[0], start.weight[1]], cut: start.cut };
+  const a = separatorByLevels(g, levels, start, o, work);
+  if (o.separatorRefinement === "all" || g.n < o.bothAbove) return a;
+  return lighter(g, a, separate(g, uncoarsenBisection(g, levels, copy, o, work), o, work));
 }
 
 /** The labelling with the lighter separator; ties go to the better balance. */
@@ -106,11 +120,9 @@ export function lighter(g: WGraph, a: Int8Array, b: Int8Array): Int8Array {
 }
 
 /** Cover on the coarsest graph, then separator FM on every level while projecting back. */
-function separatorByLevels(g: WGraph, rng: Rng, o: BisectOptions, work: FmWork): Int8Array {
-  const levels = coarsen(g, rng, o.coarsestSize);
+function separatorByLevels(g: WGraph, levels: Level[], start: Bisection, o: BisectOptions, work: FmWork): Int8Array {
   const coarsest = levels.length > 0 ? levels[levels.length - 1].graph : g;
-  const first = initialBisection(coarsest, rng, triesFor(g, o), partBound(coarsest, o.imbalance), work);
-  let label = separate(coarsest, first, o, work);
+  let label = separate(coarsest, start, o, work);
   for (let i = levels.length - 1; i >= 0; i--) {
     const fine = i > 0 ? levels[i - 1].graph : g;
     const coarseOf = levels[i].coarseOf;
