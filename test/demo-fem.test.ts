@@ -1,7 +1,6 @@
 import { describe, expect, it } from "vitest";
 import fc from "fast-check";
 import { CholeskyDecomposition, Matrix } from "ml-matrix";
-import { InputError } from "../src/errors.js";
 import { meshPlate } from "../src/fem/mesh.js";
 import { assembleP1, expandSolution, type Triplets } from "../src/fem/p1.js";
 import { convergenceStudy, l2Error } from "../src/fem/manufactured.js";
@@ -63,23 +62,23 @@ describe("P1 manufactured solution", () => {
 });
 
 describe("mesher and assembly properties (fast-check)", () => {
-  /** Random plates with up to three holes; specs the mesher refuses are skipped. */
+  /** Random plates with up to two holes, sized and placed so that the mesher accepts every one. */
   const plates = fc.record({
     width: fc.double({ min: 0.5, max: 2, noNaN: true }),
     height: fc.double({ min: 0.5, max: 2, noNaN: true }),
-    h: fc.double({ min: 0.03, max: 0.08, noNaN: true }),
-    holes: fc.array(fc.record({ fx: fc.double({ min: 0.2, max: 0.8, noNaN: true }), fy: fc.double({ min: 0.2, max: 0.8, noNaN: true }), fr: fc.double({ min: 0.05, max: 0.2, noNaN: true }) }), { maxLength: 3 }),
-  }).map((p) => ({
-    width: p.width, height: p.height, h: p.h,
-    holes: p.holes.map((o) => ({ x: o.fx * p.width, y: o.fy * p.height, r: o.fr * Math.min(p.width, p.height) })),
-  }));
+    fh: fc.double({ min: 0.03, max: 0.06, noNaN: true }),
+    holes: fc.array(fc.record({ dx: fc.double({ min: -0.05, max: 0.05, noNaN: true }), fy: fc.double({ min: 0.35, max: 0.65, noNaN: true }), fr: fc.double({ min: 0.07, max: 0.12, noNaN: true }) }), { minLength: 1, maxLength: 2 }),
+  }).map((p) => {
+    const s = Math.min(p.width, p.height);
+    return {
+      width: p.width, height: p.height, h: p.fh * s,
+      holes: p.holes.map((o, k) => ({ x: (0.25 + 0.5 * k + o.dx) * p.width, y: o.fy * p.height, r: o.fr * s })),
+    };
+  });
 
   it("every edge is shared by two triangles or lies on the rim or on a circle; areas are positive and add up", () => {
-    let withHoles = 0;
     fc.assert(fc.property(plates, (spec) => {
-      let mesh;
-      try { mesh = meshPlate(spec); } catch (e) { if (e instanceof InputError) return; throw e; }
-      if (spec.holes.length > 0) withHoles++;
+      const mesh = meshPlate(spec);
       const xy = mesh.coords, T = mesh.triangles;
       const edges = new Map<string, number>();
       let area = 0;
@@ -106,13 +105,11 @@ describe("mesher and assembly properties (fast-check)", () => {
       const chord = spec.holes.reduce((s, o) => s + (2 * Math.PI * o.r * (2 * spec.h) ** 2) / (8 * o.r), 0);
       expect(Math.abs(area - exact)).toBeLessThanOrEqual(chord + 1e-9);
     }), { numRuns: 40 });
-    expect(withHoles).toBeGreaterThan(10); // the property did meet holes
   });
 
   it("without Dirichlet nodes the P1 stiffness is symmetric and annihilates constants (common practice)", () => {
     fc.assert(fc.property(plates, fc.double({ min: 0.1, max: 10, noNaN: true }), (spec, kappa) => {
-      let mesh;
-      try { mesh = meshPlate(spec); } catch (e) { if (e instanceof InputError) return; throw e; }
+      const mesh = meshPlate(spec);
       const sys = assembleP1(mesh, { kappa, source: () => 0, dirichlet: () => undefined });
       const { n, rows, cols, values } = sys.matrix;
       const rowSum = new Float64Array(n), sym = new Map<string, number>();
