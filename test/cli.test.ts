@@ -153,6 +153,13 @@ describe("septum solve", () => {
     expect(j.backwardError).toBeLessThan(j.n * Number.EPSILON * 10); // normwise backward error O(n·eps) for a stable factorization (common practice)
   });
 
+  it("a general file holding both triangles gives the same analysis as the symmetric file", () => {
+    const full = file("full3.mtx", "%%MatrixMarket matrix coordinate real general\n3 3 7\n1 1 4\n2 1 -1\n1 2 -1\n2 2 4\n3 2 -1\n2 3 -1\n3 3 4\n");
+    const a = JSON.parse(run(["solve", full, "--json"]).out), b = JSON.parse(run(["solve", file("sym3.mtx", SPD3), "--json"]).out);
+    for (const k of ["n", "nnzA", "nnzL", "flops"]) expect(a[k]).toBe(b[k]);
+    expect(a.maxError).toBeLessThan(16 * Number.EPSILON * 4); // tridiag(−1, 4, −1) of order 3 is well conditioned (cond < 3, closed form)
+  });
+
   it("a right-hand side of the wrong length names both sizes", () => {
     file("b4.mtx", "%%MatrixMarket matrix array real general\n4 1\n1\n2\n3\n4\n");
     expectOneLineError(run(["solve", file("a3b.mtx", SPD3), "--rhs", "b4.mtx"]), 1, "b4.mtx: has 4 rows, but the matrix has 3");
