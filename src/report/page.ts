@@ -38,6 +38,7 @@ table.cmp{border-collapse:collapse;width:100%;font-variant-numeric:tabular-nums;
 .cmp .num{text-align:right}.cmp .best{font-weight:700}.cmp tr.shown{background:#f2f6fd}
 .tag{font-size:11px;font-weight:500;color:var(--accent);border:1px solid #c5d5ef;border-radius:8px;padding:0 6px;margin-left:4px}
 .note{color:var(--mute);font-size:13px;margin:8px 0 0}
+.thumbs{display:flex;flex-wrap:wrap;gap:14px;margin-top:14px}.thumbs figure{margin:0;font-size:12px;color:var(--mute);text-align:center}.thumbs img{display:block;width:200px;height:200px;image-rendering:pixelated;border:1px solid #334}
 .legend{display:flex;flex-wrap:wrap;gap:18px;font-size:13px;color:var(--mute);margin:10px 2px 0}
 .legend i{display:inline-block;width:14px;height:10px;border-radius:2px;margin-right:6px;vertical-align:-1px}
 footer{margin-top:36px;color:var(--mute);font-size:12px}
@@ -98,7 +99,7 @@ export function renderReport(r: ReportInput): string {
 ${tree}
 ${extra}
 <h2>Orderings side by side</h2>
-<div class="box">${orderingTable(r.orderings, r.shown, nnzLowerA)}</div>
+<div class="box">${orderingTable(r.orderings, r.shown, nnzLowerA)}${factorThumbnails(r)}</div>
 <footer>${r.footer ? esc(r.footer) : "Made by septum."}</footer>
 </main></body></html>
 `;
@@ -115,4 +116,19 @@ function compose(drawnInverse: Int32Array, structurePermutation: Int32Array): In
   const r = new Int32Array(structurePermutation.length);
   for (let k = 0; k < r.length; k++) r[k] = drawnInverse[structurePermutation[k]];
   return r;
+}
+
+/** Largest factor drawn as a thumbnail (binning costs one pass over L). */
+const THUMBNAIL_LIMIT = 5e7;
+
+/** The factor of every ordering as a small picture, each in its own structure numbering. */
+function factorThumbnails(r: ReportInput): string {
+  const warm = palette(FACTOR_STOPS);
+  const figures = r.orderings.filter((o) => o.structure && o.figures.nnzL <= THUMBNAIL_LIMIT).map((o) => {
+    const st = o.structure!;
+    const size = binCount(st.n, 200);
+    const url = pngDataUrl(size, size, densityPixels(binFactor(st, size)), warm);
+    return `<figure><img src="${url}" alt="factor under ${esc(o.name)}"><figcaption>${esc(o.name)}: ${fmt(o.figures.nnzL)} entries</figcaption></figure>`;
+  });
+  return figures.length < 2 ? "" : `<p class="note">The factor L under each ordering (same colour scale as above):</p><div class="thumbs">${figures.join("")}</div>`;
 }
