@@ -84,7 +84,7 @@ export function renderReport(r: ReportInput): string {
   ].map(([k, v]) => `<div class="card"><b>${v}</b><span>${esc(k)}</span></div>`).join("");
   const tree = shown?.separatorTree && shown.separatorTree.count > 1
     ? `<h2>Separator tree (${shown.name})</h2><div class="box">${separatorTreeSvg(shown.separatorTree, r.n, 1180)}
-<p class="note">Each disc is a separator, placed above the positions it covers (aligned with the pictures above); its area grows with its size. Grey squares are leaf subdomains. Nodes on different branches share no entries of L, so their factorizations are independent work.</p></div>`
+<p class="note">Each disc is a separator, placed above the middle of the positions its subtree covers (position 1 at the left, n at the right, as along the axes of the pictures above); its area grows with its size, and the number beside it is its size. Grey squares are leaf subdomains. Nodes on different branches share no entries of L, so their factorizations are independent work.</p></div>`
     : "";
   const extra = (r.extraSections ?? []).map((s) => `<h2>${esc(s.title)}</h2><div class="box">${s.html}</div>`).join("\n");
   return `<!doctype html>
