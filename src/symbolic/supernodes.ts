@@ -50,12 +50,13 @@ export interface Partition {
 /** Fundamental supernodes of a postordered tree: start[] boundaries. */
 export function fundamentalSupernodes(parent: Int32Array, counts: Int32Array): Int32Array {
   const n = parent.length;
-  const starts: number[] = [];
+  const starts = new Int32Array(n + 1);
+  let ns = 0;
   for (let j = 0; j < n; j++) {
-    if (j === 0 || parent[j - 1] !== j || counts[j - 1] !== counts[j] + 1) starts.push(j);
+    if (j === 0 || parent[j - 1] !== j || counts[j - 1] !== counts[j] + 1) starts[ns++] = j;
   }
-  starts.push(n);
-  return Int32Array.from(starts);
+  starts[ns] = n;
+  return starts.slice(0, ns + 1);
 }
 
 /**
