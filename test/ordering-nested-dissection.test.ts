@@ -1,6 +1,7 @@
 import fc from "fast-check";
 import { describe, expect, it } from "vitest";
 import type { Graph } from "../src/graph/types.js";
+import { validateCoordinates } from "../src/ordering/coordinates.js";
 import { minimumDegree } from "../src/ordering/minimum-degree.js";
 import { nestedDissection } from "../src/ordering/nested-dissection/index.js";
 import type { SeparatorTree } from "../src/ordering/types.js";
@@ -153,6 +154,33 @@ describe("nested dissection: valid orderings on any graph", () => {
       let wi = 0;
       for (let k = t.first[i]; k < t.end[i]; k++) wi += w[r.permutation[k]];
       expect(wi / total).toBeLessThan(0.75);
+    }
+  });
+});
+
+describe("nested dissection: separators", () => {
+  // A k×k grid is split by a line of k vertices, a k³ grid by a plane of k² (common practice);
+  // the top separator found must be within 25 % of that.
+  it("finds a top separator close to a grid line (2-D) and a grid plane (3-D)", () => {
+    for (const [g, bound] of [[grid2(64), 64], [grid3(14), 14 * 14]] as const) {
+      const t = nd(g).separatorTree!;
+      const root = t.count - 1;
+      expect(t.parent[root]).toBe(-1);
+      const size = t.end[root] - t.separatorFirst[root];
+      expect(size).toBeGreaterThan(0);
+      expect(size).toBeLessThanOrEqual(1.25 * bound);
+    }
+  });
+
+  it("gives consistent trees with coordinate bisection, plain and refined", () => {
+    const k = 50;
+    const g = grid2(k);
+    const xy = new Float64Array(2 * g.n);
+    for (let v = 0; v < g.n; v++) { xy[2 * v] = (v % k) + 0.1 * Math.sin(v); xy[2 * v + 1] = Math.floor(v / k); }
+    for (const coordinateMode of ["plain", "refine"] as const) {
+      const r = nestedDissection(g, { orderLeaf: leafOrder, coordinates: validateCoordinates(xy, g.n), coordinateMode });
+      expectPermutation(r.permutation, g.n);
+      expectTreeConsistent(g, r.permutation, r.separatorTree!);
     }
   });
 });

@@ -34,6 +34,7 @@ export class MaxHeap {
   }
   remove(v: number): void {
     const i = this.pos[v];
+    if (i < 0) return;
     this.pos[v] = -1;
     const last = this.heap[--this.size];
     if (i === this.size) return;
