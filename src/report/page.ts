@@ -19,6 +19,7 @@ const CSS = `
 main{max-width:1240px;margin:0 auto;padding:28px 28px 48px}
 h1{font-size:26px;margin:0 0 2px}h2{font-size:18px;margin:34px 0 10px}
 .sub{color:var(--mute);margin:0 0 18px}
+.lead{max-width:880px;margin:0 0 14px;color:#3a4456}
 .cards{display:flex;flex-wrap:wrap;gap:12px;margin:18px 0}
 .card{background:#fff;border:1px solid var(--line);border-radius:10px;padding:10px 16px;min-width:140px}
 .card b{display:block;font-size:20px;font-variant-numeric:tabular-nums}.card span{color:var(--mute);font-size:13px}
@@ -94,6 +95,7 @@ export function renderReport(r: ReportInput): string {
 <h1>${esc(r.title)}</h1><p class="sub">${esc(r.source)}</p>
 <div class="cards">${cards}</div>
 <h2>Sparsity patterns</h2>
+<p class="lead">A sparse Cholesky factorization computes P·A·Pᵀ = L·Lᵀ, where the permutation P (the ordering) is chosen so that L stays sparse. Nested dissection numbers a small separator last, so the two subdomains it splits never touch: the blocks between them stay exactly zero in L, and their factorizations are independent work.</p>
 <div class="panels">${panels.join("\n")}</div>
 <div class="legend"><span><i style="background:#6b9ed6"></i>entries of A (darker = denser cell)</span><span><i style="background:#f3944f"></i>entries of L</span><span><i style="background:#2e9e5b;opacity:.5"></i>zero blocks</span><span>${size < r.n ? `Binned to ${size}×${size} cells of ${Math.ceil(r.n / size)}×${Math.ceil(r.n / size)} entries.` : "One cell per entry."}</span></div>
 ${tree}
