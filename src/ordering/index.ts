@@ -31,7 +31,9 @@ export interface OrderingOptions {
    * cut's boundary as is (fastest); "ignore" disregards the coordinates.
    */
   coordinateMode?: "refine" | "plain" | "ignore";
+  /** Checked between pieces of the dissection; an aborted signal stops the work with AbortedError. */
   signal?: AbortSignal;
+  /** Called with the fraction (0..1) of vertices placed so far. */
   onProgress?: (fraction: number) => void;
 }
 
@@ -41,7 +43,13 @@ export const DISSECTION_THRESHOLD = 200;
 /** Compress only when the quotient graph has at most this fraction of the vertices. */
 const COMPRESSION_RATIO = 0.75;
 
-/** Computes the ordering requested in `options` for graph g. */
+/**
+ * Computes the ordering requested in `options` for graph g.
+ * @returns the permutation (new position → original vertex), the ordering's
+ * name, and for nested dissection the separator tree in the new numbering.
+ * @throws InputError for an unknown ordering, a bad seed, bad coordinates or an
+ * invalid user permutation (naming the first bad entry); AbortedError when the signal fires.
+ */
 export function computeOrdering(g: Graph, options: OrderingOptions = {}): OrderingResult {
   const n = g.n;
   if (options.signal?.aborted) throw new AbortedError("ordering aborted before it started");
