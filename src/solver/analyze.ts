@@ -3,7 +3,7 @@
  * matrix (any storage form), orders it, runs the symbolic phase and predicts
  * the numeric phase's memory, all before any numeric storage exists.
  */
-import { AbortedError, InputError } from "../errors.js";
+import { AbortedError, InputError, SeptumError } from "../errors.js";
 import { adjacencyGraph } from "../graph/adjacency.js";
 import type { SparseMatrix } from "../matrix/sparse.js";
 import { requireSquare, storageForm } from "../matrix/symmetric.js";
@@ -63,6 +63,7 @@ export function analyze(A: SparseMatrix, options: AnalyzeOptions = {}): Analysis
   });
   const t1 = now();
   checkAbort(signal);
+  checkOrderingOutput(ordering.permutation, A.ncols, ordering.name ?? "ordering");
   const sym = symbolicFactorization(graph, ordering.permutation, options.amalgamation ?? {});
   const work = predictWorkspace(sym.structure, "cholesky");
   const t2 = now();
@@ -121,6 +122,18 @@ function lowerCount(A: SparseMatrix): number {
     for (let p = A.colPtr[j]; p < A.colPtr[j + 1]; p++) if (A.rowIdx[p] >= j) c++;
   }
   return c;
+}
+
+/** Guard against a faulty ordering: a bad permutation must never reach the symbolic phase. */
+function checkOrderingOutput(p: Int32Array, n: number, name: string): void {
+  const seen = new Uint8Array(n);
+  let ok = p.length === n;
+  for (let k = 0; ok && k < n; k++) {
+    const v = p[k];
+    ok = v >= 0 && v < n && seen[v] === 0;
+    if (ok) seen[v] = 1;
+  }
+  if (!ok) throw new SeptumError(`internal error: the ${name} ordering returned an invalid permutation; please report this matrix`);
 }
 
 function checkAbort(signal: AbortSignal | undefined): void {
