@@ -133,7 +133,7 @@ export class Factorization {
       childPtr: this.schedule.childPtr, children: this.schedule.children,
       stackBase: w.factorDoubles, scratch: w.factorDoubles + w.stackDoubles,
       tiny: this.pivotTolerance * maxAbs(A),
-      cbOffset: new Float64Array(st.supernodeCount), local: new Int32Array(st.n), rel: new Int32Array(st.n),
+      cbOffset: new Float64Array(st.supernodeCount), local: new Int32Array(st.n), rel: new Int32Array(st.n), runEnd: new Int32Array(st.n),
       between,
     });
     if (fail) throw this.pivotError(fail);

@@ -40,6 +40,7 @@ export interface FrontalPass {
   /** Workspaces of length n. */
   readonly local: Int32Array;
   readonly rel: Int32Array;
+  readonly runEnd: Int32Array;
   /** Called between supernodes with the supernode just done; may throw (abort). */
   readonly between: (s: number) => void;
 }
@@ -65,13 +66,21 @@ export function multifrontal(p: FrontalPass): PivotFailure | null {
     if (fail) return fail;
     // Slide s's block down over its children's (stack pop + push).
     const size = cbDoubles(st, s);
-    const S = p.kernels.view();
-    if (base !== top && size > 0) S.copyWithin(base, top, top + size);
+    if (base !== top && size > 0) slideLower(p.kernels.view(), base, top, Math.sqrt(size));
     p.cbOffset[s] = base;
     top = base + size;
     p.between(s);
   }
   return null;
+}
+
+/**
+ * Move the lower triangle of the b×b block at `from` down to `to` (< from),
+ * column by column in increasing order: a column's destination ends below
+ * the next column's source, so nothing unread is overwritten.
+ */
+function slideLower(S: Float64Array, to: number, from: number, b: number): void {
+  for (let j = 0; j < b; j++) S.copyWithin(to + j * b + j, from + j * b + j, from + (j + 1) * b);
 }
 
 function cbDoubles(st: SupernodalStructure, s: number): number {
@@ -86,7 +95,7 @@ function factorFront(p: FrontalPass, s: number, cb: number): PivotFailure | null
   const c = st.superStart[s + 1] - st.superStart[s], b = m - c;
   const panel = st.factorPtr[s];
   const S = K.view();
-  if (b > 0) S.fill(0, cb, cb + b * b);
+  for (let j = 0; j < b; j++) S.fill(0, cb + j * b + j, cb + (j + 1) * b); // lower triangle only
   for (let t = 0; t < m; t++) p.local[st.rowIdx[r0 + t]] = t;
   extendAddChildren(p, s, panel, m, c, cb);
   if (p.method === "cholesky") {
@@ -115,10 +124,11 @@ function factorFront(p: FrontalPass, s: number, cb: number): PivotFailure | null
 /**
  * Extend-add: add every child's contribution block into s's panel (rows and
  * columns among s's own) or s's contribution block (the rest), through
- * relative indices (`rel`, Liu 1992 §5).
+ * relative indices (`rel`, Liu 1992 §5), split into runs of consecutive
+ * parent rows so the inner loops are contiguous.
  */
 function extendAddChildren(p: FrontalPass, s: number, panel: number, m: number, c: number, cb: number): void {
-  const { st, local, rel, children } = p;
+  const { st, local, rel, runEnd, children } = p;
   const S = p.kernels.view();
   const b = m - c;
   for (let k = p.childPtr[s]; k < p.childPtr[s + 1]; k++) {
@@ -126,12 +136,19 @@ function extendAddChildren(p: FrontalPass, s: number, panel: number, m: number, 
     const cr0 = st.rowPtr[ch] + (st.superStart[ch + 1] - st.superStart[ch]);
     const nb = st.rowPtr[ch + 1] - cr0;
     for (let t = 0; t < nb; t++) rel[t] = local[st.rowIdx[cr0 + t]];
+    // runEnd[t]: end of the run of consecutive parent rows that contains t.
+    for (let t = nb - 1; t >= 0; t--) runEnd[t] = t + 1 < nb && rel[t + 1] === rel[t] + 1 ? runEnd[t + 1] : t + 1;
     const src = p.cbOffset[ch];
     for (let jj = 0; jj < nb; jj++) {
       const pc = rel[jj];
       const dst = pc < c ? panel + pc * m : cb + (pc - c) * b - c;
       const col = src + jj * nb;
-      for (let ii = jj; ii < nb; ii++) S[dst + rel[ii]] += S[col + ii];
+      // Each run of consecutive parent rows is a plain contiguous add.
+      for (let a = jj; a < nb; ) {
+        const e = runEnd[a], d = dst + rel[a] - a;
+        for (let ii = a; ii < e; ii++) S[d + ii] += S[col + ii];
+        a = e;
+      }
     }
   }
 }
