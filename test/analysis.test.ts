@@ -1,6 +1,6 @@
 import { describe, expect, it } from "vitest";
 import fc from "fast-check";
-import { analyze, Analysis } from "../src/index.js";
+import { analyze, Analysis, geometricLaplacian, grid3d } from "../src/index.js";
 import { SparseMatrix } from "../src/matrix/sparse.js";
 import { FormatError, InputError, AbortedError } from "../src/errors.js";
 import { symmetricMultiply } from "../src/matrix/symmetric.js";
@@ -57,6 +57,17 @@ describe("analyze", () => {
       expect(Array.from(other.permutation)).toEqual(Array.from(a.permutation));
       expect(other.stats.nnzL).toBe(a.stats.nnzL);
       expect(other.stats.nnzA).toBe(a.stats.nnzA);
+    }
+  });
+
+  it("the default keeps the better of nested dissection and minimum degree", () => {
+    for (const A of [grid3d(12).matrix, geometricLaplacian(3000, 8, 1e-2, 5).matrix, grid2d(5)]) {
+      const auto = analyze(A);
+      const nd = analyze(A, { ordering: "nested-dissection" }).stats.flops;
+      const md = analyze(A, { ordering: "minimum-degree" }).stats.flops;
+      expect(auto.stats.flops).toBe(A.ncols <= 200 ? md : Math.min(nd, md));
+      expect(["nested-dissection", "minimum-degree"]).toContain(auto.stats.ordering);
+      expect(auto.separatorTree !== undefined).toBe(auto.stats.ordering === "nested-dissection");
     }
   });
 

@@ -68,6 +68,11 @@ export function computeOrdering(g: Graph, options: OrderingOptions = {}): Orderi
   return result;
 }
 
+/** Leaves set rows denser than this aside, as minimum degree does by default (keeps star-like leaves linear). */
+function denseThreshold(n: number): number {
+  return Math.max(16, 10 * Math.sqrt(n));
+}
+
 function identity(n: number): Int32Array {
   const p = new Int32Array(n);
   for (let i = 0; i < n; i++) p[i] = i;
@@ -81,7 +86,7 @@ function dissect(g: Graph, options: OrderingOptions): OrderingResult {
   if (mode !== undefined && mode !== "refine" && mode !== "plain" && mode !== "ignore") {
     throw new InputError(`coordinateMode must be "refine", "plain" or "ignore", got ${String(mode)}`);
   }
-  const orderLeaf = (leaf: Graph): Int32Array => minimumDegreeTrusted(leaf, Infinity, true);
+  const orderLeaf = (leaf: Graph): Int32Array => minimumDegreeTrusted(leaf, denseThreshold(leaf.n), true);
   const common = {
     orderLeaf, seed: options.seed, signal: options.signal, onProgress: options.onProgress, coordinateMode: options.coordinateMode,
   };
