@@ -51,7 +51,7 @@ describe("gemm: C := C − A·Bᵀ", () => {
                 bound += Math.abs(before[a + i + p * lda] * before[b + j + p * ldb]);
               }
               want -= s;
-              // Standard dot-product error bound |err| ≤ k·ε·Σ|a||b| (Higham 2002, §3.1).
+              // Standard dot-product error bound |err| ≤ k·ε·Σ|a||b| (Higham 2002, §3.1; from memory).
               expect(Math.abs(S[idx] - want)).toBeLessThanOrEqual((k + 2) * EPS * (bound + Math.abs(before[idx])));
             } else {
               expect(S[idx]).toBe(want); // entries outside C (or above its diagonal) untouched
@@ -196,7 +196,7 @@ describe("ldlt", () => {
           S[i + j * n] = v;
         }
         expect(K.ldlt(n, 0, n, 0)).toBe(-1);
-        // Quasi-definite matrices are strongly factorizable (Vanderbei 1995): D has n1 positive, n2 negative entries.
+        // Quasi-definite matrices are strongly factorizable (Vanderbei 1995, from memory): D has n1 positive, n2 negative entries.
         let pos = 0;
         for (let j = 0; j < n; j++) if (S[j + j * n] > 0) pos++;
         expect(pos).toBe(n1);

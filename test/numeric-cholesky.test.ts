@@ -3,7 +3,8 @@
  * references: ml-matrix (CholeskyDecomposition, solve, dense residuals),
  * closed forms for the 1-D and 2-D Laplacians (standard results), and the
  * normwise backward error bound c·n·ε of a backward-stable Cholesky solve
- * (Higham 2002, Accuracy and Stability of Numerical Algorithms, Thm 10.4).
+ * (Higham 2002, Accuracy and Stability of Numerical Algorithms, Thm 10.4;
+ * theorem number from memory).
  */
 import fc from "fast-check";
 import { CholeskyDecomposition, Matrix, solve as denseSolve } from "ml-matrix";
@@ -33,7 +34,7 @@ describe("Cholesky solve on random sparse SPD matrices (property)", () => {
         const b = randomVector(n, seed + 1);
         const x = F.solve(b);
         const M = dense(A);
-        // Higham 2002 Thm 10.4: Cholesky solves are normwise backward stable, η ≤ c·n·ε.
+        // Higham 2002 Thm 10.4 (from memory): Cholesky solves are normwise backward stable, η ≤ c·n·ε.
         expect(denseBackwardError(M, x, b)).toBeLessThanOrEqual(10 * n * EPS);
         const Ax = M.mmul(Matrix.columnVector(Array.from(x)));
         let rn = 0, xn = 0;
@@ -114,7 +115,7 @@ describe("closed forms", () => {
   });
 
   it("2-D 5-point Laplacian: log det = Σ log(4 − 2cos(pπ/(k+1)) − 2cos(qπ/(k+1)))", () => {
-    // Standard result (LeVeque 2007, Finite Difference Methods for ODEs and PDEs, §3.4).
+    // Standard result (LeVeque 2007, Finite Difference Methods for ODEs and PDEs; section from memory).
     for (const k of [7, 24]) {
       let want = 0;
       for (let p = 1; p <= k; p++) for (let q = 1; q <= k; q++) {

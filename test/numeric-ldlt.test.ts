@@ -1,6 +1,6 @@
 /**
  * L·D·Lᵀ without pivoting on quasi-definite and SPD matrices. Outside
- * references: Vanderbei 1995 (SIAM J. Optim. 5(1)): a quasi-definite
+ * references: Vanderbei 1995 (SIAM J. Optim. 5(1); from memory): a quasi-definite
  * [[H, Bᵀ], [B, −C]] (H, C positive definite) factors as L·D·Lᵀ for every
  * symmetric permutation, and D then has n₁ positive and n₂ negative entries
  * (Sylvester's law of inertia); ml-matrix's determinant and solve on small

@@ -5,7 +5,8 @@
  * a regularized saddle point built from them. Every check is the normwise
  * backward error bound c·n·ε of a backward-stable factorization (Higham
  * 2002, Thm 10.4 for Cholesky; Gill, Saunders & Shinnerl 1996, SIAM J.
- * Matrix Anal. Appl. 17(1), for L·D·Lᵀ of quasi-definite matrices), measured
+ * Matrix Anal. Appl. 17(1), for L·D·Lᵀ of quasi-definite matrices; both
+ * citations from memory), measured
  * with an independent residual computed by the test.
  */
 import { describe, expect, it } from "vitest";
