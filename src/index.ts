@@ -27,12 +27,13 @@ export type { SupernodalStructure } from "./symbolic/types.js";
 export type { AmalgamationOptions } from "./symbolic/supernodes.js";
 export { analyze, type AnalyzeOptions, type OrderingName, type Progress } from "./solver/analyze.js";
 export { Analysis } from "./solver/analysis.js";
+export type { FactorizeOptions } from "./solver/factor.js";
 export type { AnalysisStats } from "./solver/stats.js";
 export { getKernels, type KernelSelectOptions } from "./kernels/index.js";
 export type { DenseKernels, KernelName } from "./kernels/types.js";
 export { Factorization, predictWorkspace, DEFAULT_PIVOT_TOLERANCE } from "./numeric/index.js";
 export type {
-  FactorMethod, FactorOptions, FactorStats, Inertia, SolveInfo, SolveOptions, RefactorOptions, WorkspacePrediction,
+  FactorMethod, FactorStats, Inertia, SolveInfo, SolveOptions, RefactorOptions, WorkspacePrediction,
 } from "./numeric/index.js";
 export { jsKernels } from "./kernels/js/index.js";
 export { readMatrixMarket, writeMatrixMarket, writeMatrixMarketArray } from "./matrix/market.js";

@@ -21,7 +21,12 @@ import {
 import { predictWorkspace, stackSchedule, type StackSchedule, type WorkspacePrediction } from "./workspace.js";
 
 /** Options that may change from one refactor to the next. */
-export type RefactorOptions = Pick<FactorOptions, "onProgress" | "signal">;
+export interface RefactorOptions {
+  /** Called with the fraction (0..1] of the factorization flops done, between supernodes. */
+  onProgress?: (fraction: number) => void;
+  /** Checked between supernodes; when aborted the factorization throws AbortedError and is left unusable. */
+  signal?: AbortSignal;
+}
 
 /**
  * Numeric factorization of P·A·Pᵀ = L·Lᵀ (Cholesky) or L·D·Lᵀ for the

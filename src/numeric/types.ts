@@ -19,7 +19,7 @@ export interface NumericInput {
   readonly flops?: number;
 }
 
-/** Default for {@link FactorOptions.pivotTolerance}. */
+/** Default L·D·Lᵀ pivot tolerance, relative to the largest entry of A. */
 export const DEFAULT_PIVOT_TOLERANCE = 1e-12;
 
 /** Options of a numeric factorization. */

@@ -19,7 +19,7 @@ export type OrderingChoice = "nested-dissection" | "minimum-degree" | "reverse-c
 
 /** Options of {@link computeOrdering}. */
 export interface OrderingOptions {
-  /** Default: nested dissection above {@link DISSECTION_THRESHOLD} vertices, minimum degree below. */
+  /** Default: nested dissection above 200 vertices, minimum degree below. */
   ordering?: OrderingChoice;
   /** Seed of the randomized steps of nested dissection; same seed, same ordering. Default 1. */
   seed?: number;
