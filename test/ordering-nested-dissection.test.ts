@@ -3,7 +3,10 @@ import { describe, expect, it } from "vitest";
 import type { Graph } from "../src/graph/types.js";
 import { validateCoordinates } from "../src/ordering/coordinates.js";
 import { minimumDegree } from "../src/ordering/minimum-degree.js";
+import { Int32Arena } from "../src/ordering/nested-dissection/arena.js";
 import { nestedDissection } from "../src/ordering/nested-dissection/index.js";
+import { coverWork, SEPARATOR, vertexSeparatorFromCut } from "../src/ordering/nested-dissection/separator.js";
+import { weightedGraph } from "../src/ordering/nested-dissection/wgraph.js";
 import type { SeparatorTree } from "../src/ordering/types.js";
 import { columnCounts } from "../src/symbolic/column-counts.js";
 import { eliminationTree, postorder } from "../src/symbolic/etree.js";
@@ -214,5 +217,65 @@ describe("nested dissection: fill and work", () => {
     const a = factorStats(g, nd(g).permutation);
     const b = factorStats(g, minimumDegree(g));
     expect(a.flops).toBeLessThan(0.8 * b.flops);
+  });
+});
+
+describe("nested dissection: edge cut to vertex separator (König cover) with a reused workspace", () => {
+  /** Smallest vertex cover of the cut edges by exhaustive search over subsets of the boundary (outside reference: brute force). */
+  function bruteCover(g: Graph, label: Int8Array): number {
+    const cut: Array<[number, number]> = [];
+    for (let v = 0; v < g.n; v++) for (let p = g.offsets[v]; p < g.offsets[v + 1]; p++) {
+      const u = g.neighbours[p];
+      if (v < u && label[v] !== label[u]) cut.push([v, u]);
+    }
+    const ends = [...new Set(cut.flat())];
+    let best = ends.length;
+    for (let mask = 0; mask < 1 << ends.length; mask++) {
+      const chosen = new Set(ends.filter((_, i) => (mask >> i) & 1));
+      if (chosen.size < best && cut.every(([a, b]) => chosen.has(a) || chosen.has(b))) best = chosen.size;
+    }
+    return best;
+  }
+
+  it("separates, is a minimum cover (König's theorem, brute force on small cuts) and leaves the workspace clean (property)", () => {
+    const small = fc.integer({ min: 2, max: 14 }).chain((n) => fc.tuple(
+      fc.constant(n), fc.array(fc.tuple(fc.nat(n - 1), fc.nat(n - 1)), { maxLength: 2 * n }), fc.array(fc.boolean(), { minLength: n, maxLength: n })));
+    const work = coverWork(14); // one workspace for every run, as the dissection reuses it
+    fc.assert(fc.property(small, ([n, edges, side]) => {
+      const plain = graphOf(n, (e) => { for (const [a, b] of edges) e(a, b); });
+      const g = weightedGraph(plain);
+      const label = Int8Array.from(side, (s) => (s ? 1 : 0));
+      const expected = bruteCover(plain, label);
+      vertexSeparatorFromCut(g, label, work);
+      let size = 0;
+      for (let v = 0; v < n; v++) {
+        if (label[v] === SEPARATOR) size++;
+        for (let p = plain.offsets[v]; p < plain.offsets[v + 1]; p++) {
+          const u = plain.neighbours[p];
+          expect(label[v] === 0 && label[u] === 1).toBe(false); // no edge left between the parts
+        }
+      }
+      expect(size).toBe(expected);
+      expect(work.mate.every((x) => x === -1)).toBe(true);
+      expect(work.stamp.every((x) => x === -1)).toBe(true);
+    }), { numRuns: 200 });
+  });
+});
+
+describe("nested dissection: hierarchy arena", () => {
+  it("hands out disjoint arrays, returns trimmed tails, and falls back to fresh arrays when full", () => {
+    const arena = new Int32Arena(10);
+    const a = arena.take(4).fill(1);
+    const b = arena.take(5).fill(2);
+    expect(Array.from(a)).toEqual([1, 1, 1, 1]); // b did not overwrite a
+    const bt = arena.trim(b, 2);
+    expect(bt.length).toBe(2);
+    const c = arena.take(4).fill(3); // fits again only because b's tail came back
+    expect(c.buffer).toBe(a.buffer);
+    expect(Array.from(bt)).toEqual([2, 2]);
+    const d = arena.take(1); // 4 + 2 + 4 = 10 used: this one cannot fit
+    expect(d.buffer).not.toBe(a.buffer);
+    arena.reset();
+    expect(arena.take(10).buffer).toBe(a.buffer);
   });
 });

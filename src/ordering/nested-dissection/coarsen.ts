@@ -5,6 +5,7 @@
  * with the unmatched neighbour joined by the heaviest edge, and contract the
  * matched pairs. Linear in the size of the graph per level.
  */
+import { resetArenas, type HierarchyArenas, type Int32Arena } from "./arena.js";
 import type { Rng } from "./rng.js";
 import type { WGraph } from "./wgraph.js";
 
@@ -15,10 +16,10 @@ export interface Level {
 }
 
 /** Heavy-edge matching; returns match[v] (v itself when unmatched). */
-export function heavyEdgeMatching(g: WGraph, rng: Rng, maxVertexWeight: number): Int32Array {
+export function heavyEdgeMatching(g: WGraph, rng: Rng, maxVertexWeight: number, arena: Int32Arena): Int32Array {
   const { n, xadj, adj, ewgt, vwgt } = g;
-  const match = new Int32Array(n).fill(-1);
-  const visit = blockShuffledOrder(n, rng);
+  const match = arena.take(n).fill(-1);
+  const visit = blockShuffledOrder(n, rng, arena);
   for (let i = 0; i < n; i++) {
     const v = visit[i];
     if (match[v] >= 0) continue;
@@ -42,11 +43,11 @@ export function heavyEdgeMatching(g: WGraph, rng: Rng, maxVertexWeight: number):
  * Visiting order: blocks of 32 consecutive ids in random order, each block in
  * sequence. Random enough to vary the matching, local enough for the cache.
  */
-function blockShuffledOrder(n: number, rng: Rng): Int32Array {
-  const blocks = new Int32Array((n + 31) >> 5);
+function blockShuffledOrder(n: number, rng: Rng, arena: Int32Arena): Int32Array {
+  const blocks = arena.take((n + 31) >> 5);
   for (let b = 0; b < blocks.length; b++) blocks[b] = b;
   rng.shuffle(blocks);
-  const visit = new Int32Array(n);
+  const visit = arena.take(n);
   let k = 0;
   for (let b = 0; b < blocks.length; b++) {
     const end = Math.min(n, (blocks[b] + 1) << 5);
@@ -56,19 +57,20 @@ function blockShuffledOrder(n: number, rng: Rng): Int32Array {
 }
 
 /** Contracts matched pairs into single vertices, summing vertex and parallel-edge weights. */
-export function contract(g: WGraph, match: Int32Array): Level {
+export function contract(g: WGraph, match: Int32Array, arenas: HierarchyArenas): Level {
   const { n, xadj: fx, adj: fa, ewgt: fe, vwgt: fv } = g;
-  const coarseOf = new Int32Array(n);
+  const coarseOf = arenas.vertices.take(n);
   let nc = 0;
   for (let v = 0; v < n; v++) {
     const u = match[v];
     if (u >= v) { coarseOf[v] = nc; coarseOf[u] = nc; nc++; }
   }
-  const xadj = new Int32Array(nc + 1);
-  const adj = new Int32Array(fa.length);
-  const ewgt = new Int32Array(fa.length);
-  const vwgt = new Int32Array(nc);
-  const slot = new Int32Array(nc).fill(-1);
+  const xadj = arenas.vertices.take(nc + 1);
+  const vwgt = arenas.vertices.take(nc);
+  const slot = arenas.vertices.take(nc).fill(-1);
+  const adj = arenas.adjacency.take(fa.length);
+  const ewgt = arenas.edgeWeights.take(fa.length);
+  xadj[0] = 0;
   let k = 0;
   let c = 0;
   for (let v = 0; v < n; v++) {
@@ -90,21 +92,25 @@ export function contract(g: WGraph, match: Int32Array): Level {
     }
     xadj[++c] = k;
   }
-  const graph: WGraph = { n: nc, xadj, adj: adj.subarray(0, k), ewgt: ewgt.subarray(0, k), vwgt, totalWeight: g.totalWeight };
+  const graph: WGraph = {
+    n: nc, xadj, adj: arenas.adjacency.trim(adj, k), ewgt: arenas.edgeWeights.trim(ewgt, k), vwgt, totalWeight: g.totalWeight,
+  };
   return { graph, coarseOf };
 }
 
 /**
  * Builds the hierarchy, finest first, until the graph has at most `coarsestSize`
  * vertices or a level shrinks by less than 15 % (stars and other graphs that
- * match poorly stop early instead of looping).
+ * match poorly stop early instead of looping). The levels live in `arenas`
+ * (reset here) and are valid until the next call.
  */
-export function coarsen(g: WGraph, rng: Rng, coarsestSize: number): Level[] {
+export function coarsen(g: WGraph, rng: Rng, coarsestSize: number, arenas: HierarchyArenas): Level[] {
+  resetArenas(arenas);
   const levels: Level[] = [];
   let current = g;
   const maxVertexWeight = Math.max(1, Math.ceil((1.5 * g.totalWeight) / coarsestSize));
   while (current.n > coarsestSize) {
-    const level = contract(current, heavyEdgeMatching(current, rng, maxVertexWeight));
+    const level = contract(current, heavyEdgeMatching(current, rng, maxVertexWeight, arenas.vertices), arenas);
     if (level.graph.n > 0.85 * current.n) break;
     levels.push(level);
     current = level.graph;

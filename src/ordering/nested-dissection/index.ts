@@ -59,6 +59,8 @@ interface State {
   leafSize: number;
   bisect: BisectOptions;
   work: FmWork;
+  /** All -1 between uses: the old → new map of inducedSubgraph. */
+  localOf: Int32Array;
 }
 
 /** Orders `graph` by nested dissection; deterministic for a given seed. */
@@ -66,7 +68,8 @@ export function nestedDissection(graph: Graph, o: DissectionOptions): OrderingRe
   const n = graph.n;
   const s: State = {
     perm: new Int32Array(n), first: [], sepFirst: [], end: [], parent: [], stack: [], placed: 0,
-    rng: new Rng(o.seed ?? 1), o, leafSize: o.leafSize ?? 128, bisect: { ...defaultBisectOptions, ...o.bisect }, work: fmWork(n),
+    rng: new Rng(o.seed ?? 1), o, leafSize: o.leafSize ?? 128, bisect: { ...defaultBisectOptions, ...o.bisect }, work: fmWork(n, graph.neighbours.length),
+    localOf: new Int32Array(n).fill(-1),
   };
   const g = weightedGraph(graph, o.vertexWeights);
   const ids = new Int32Array(n);
@@ -131,7 +134,7 @@ function findSeparator(s: State, piece: Piece): Int8Array {
  */
 function pushComponents(s: State, g: WGraph, ids: Int32Array, label: Int8Array | null, which: number, lo: number, parent: number): number {
   const { order, starts } = components(g, label, which);
-  const localOf = new Int32Array(g.n).fill(-1);
+  const localOf = s.localOf;
   let batchStart = -1;
   let pos = lo;
   const emit = (from: number, to: number, leaf: boolean): void => {

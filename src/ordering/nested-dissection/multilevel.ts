@@ -73,7 +73,7 @@ function uncoarsenBisection(g: WGraph, levels: Level[], start: Bisection, o: Bis
 
 /** Multilevel edge bisection of g, refined at every level. */
 export function multilevelBisection(g: WGraph, rng: Rng, o: BisectOptions, work: FmWork): Bisection {
-  const levels = coarsen(g, rng, o.coarsestSize);
+  const levels = coarsen(g, rng, o.coarsestSize, work.arenas);
   return uncoarsenBisection(g, levels, coarsestBisection(g, levels, rng, o, work), o, work);
 }
 
@@ -87,7 +87,7 @@ export function refineGiven(g: WGraph, label: Int8Array, o: BisectOptions, work:
 /** Vertex separator of g from an edge bisection: labels 0 / 1 for the parts, 2 for the separator. */
 export function separate(g: WGraph, b: Bisection, o: BisectOptions, work: FmWork): Int8Array {
   const label = b.label;
-  vertexSeparatorFromCut(g, label);
+  vertexSeparatorFromCut(g, label, work.cover);
   if (o.separatorRefinement !== "none") {
     refineSeparator(g, separatorState(g, label), partBound(g, o.separatorImbalance), o.passes, work);
   }
@@ -99,7 +99,7 @@ export function separate(g: WGraph, b: Bisection, o: BisectOptions, work: FmWork
  * hierarchy and the coarsest bisection between its two refinement paths.
  */
 export function multilevelSeparator(g: WGraph, rng: Rng, o: BisectOptions, work: FmWork): Int8Array {
-  const levels = coarsen(g, rng, o.coarsestSize);
+  const levels = coarsen(g, rng, o.coarsestSize, work.arenas);
   const start = coarsestBisection(g, levels, rng, o, work);
   if (o.separatorRefinement === "finest" || o.separatorRefinement === "none") {
     return separate(g, uncoarsenBisection(g, levels, start, o, work), o, work);

@@ -7,7 +7,9 @@
  * degrees and the boundary list are kept up to date, so a pass costs time in
  * proportion to the boundary, not the graph.
  */
+import { hierarchyArenas, type HierarchyArenas } from "./arena.js";
 import { MaxHeap } from "./heap.js";
+import { coverWork, type CoverWork } from "./separator.js";
 import type { WGraph } from "./wgraph.js";
 
 /** A 2-way partition: label[v] ∈ {0, 1}. */
@@ -29,13 +31,23 @@ export interface FmWork {
   boundary: Int32Array;
   boundaryPos: Int32Array;
   boundaryCount: number;
+  /** Separator vertices of the vertex-separator refinement (two lists, swapped after each pass) and a mark per vertex. */
+  separator: [Int32Array, Int32Array];
+  mark: Uint8Array;
+  /** Workspace of the edge-to-vertex separator cover. */
+  cover: CoverWork;
+  /** Storage of the coarsening hierarchy of the piece being cut. */
+  arenas: HierarchyArenas;
 }
 
-export function fmWork(capacity: number): FmWork {
+/** Workspace for graphs of up to `capacity` vertices and `edges` adjacency entries. */
+export function fmWork(capacity: number, edges: number): FmWork {
   return {
     heaps: [new MaxHeap(capacity), new MaxHeap(capacity)], moved: new Uint8Array(capacity),
     moves: new Int32Array(capacity), id: new Int32Array(capacity), ed: new Int32Array(capacity),
     boundary: new Int32Array(capacity), boundaryPos: new Int32Array(capacity).fill(-1), boundaryCount: 0,
+    separator: [new Int32Array(capacity), new Int32Array(capacity)], mark: new Uint8Array(capacity),
+    cover: coverWork(capacity), arenas: hierarchyArenas(capacity, edges),
   };
 }
 

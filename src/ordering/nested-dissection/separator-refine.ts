@@ -34,12 +34,43 @@ function gainTo(g: WGraph, label: Int8Array, v: number, t: number): number {
 /** Runs up to `passes` separator-refinement passes in place. */
 export function refineSeparator(g: WGraph, st: SeparatorState, maxPart: number, passes: number, w: FmWork): void {
   const log: number[] = [];
+  let count = collectSeparator(g, st.label, w.separator[0]);
   for (let pass = 0; pass < passes; pass++) {
     const before = st.weight[2];
     const beforeExcess = excessOf(st, maxPart);
-    separatorPass(g, st, maxPart, w, log);
+    separatorPass(g, st, maxPart, w, log, count);
+    count = updateSeparator(st.label, w, log, count);
     if (st.weight[2] >= before && excessOf(st, maxPart) >= beforeExcess) break;
   }
+}
+
+function collectSeparator(g: WGraph, label: Int8Array, list: Int32Array): number {
+  let count = 0;
+  for (let v = 0; v < g.n; v++) if (label[v] === 2) list[count++] = v;
+  return count;
+}
+
+/**
+ * The separator after a pass, without scanning the graph: every vertex that
+ * can be in it was in it before the pass or was touched by the pass (the log).
+ * Writes it to the spare list and swaps the lists; returns its size.
+ */
+function updateSeparator(label: Int8Array, w: FmWork, log: number[], count: number): number {
+  const [from, to] = w.separator;
+  const mark = w.mark;
+  let c = 0;
+  for (let i = 0; i < count; i++) {
+    const v = from[i];
+    if (label[v] === 2 && mark[v] === 0) { mark[v] = 1; to[c++] = v; }
+  }
+  for (let i = 0; i < log.length; i += 2) {
+    const v = log[i];
+    if (label[v] === 2 && mark[v] === 0) { mark[v] = 1; to[c++] = v; }
+  }
+  for (let i = 0; i < c; i++) mark[to[i]] = 0;
+  to.subarray(0, c).sort(); // ascending, as a scan would list them: same ties, same result
+  w.separator = [to, from];
+  return c;
 }
 
 function excessOf(st: SeparatorState, maxPart: number): number {
@@ -53,11 +84,14 @@ function better(st: SeparatorState, maxPart: number, bestEx: number, bestSep: nu
   return Math.abs(st.weight[0] - st.weight[1]) < bestImb;
 }
 
-function separatorPass(g: WGraph, st: SeparatorState, maxPart: number, w: FmWork, log: number[]): void {
+function separatorPass(g: WGraph, st: SeparatorState, maxPart: number, w: FmWork, log: number[], count: number): void {
   const { heaps, moved } = w;
   const label = st.label;
-  for (let v = 0; v < g.n; v++) {
-    if (label[v] === 2) { heaps[0].push(v, gainTo(g, label, v, 0)); heaps[1].push(v, gainTo(g, label, v, 1)); }
+  const list = w.separator[0];
+  for (let i = 0; i < count; i++) {
+    const v = list[i];
+    heaps[0].push(v, gainTo(g, label, v, 0));
+    heaps[1].push(v, gainTo(g, label, v, 1));
   }
   log.length = 0;
   const limit = Math.max(15, Math.min(150, g.n >> 6));

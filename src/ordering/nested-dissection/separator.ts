@@ -13,58 +13,80 @@ import type { WGraph } from "./wgraph.js";
 export const SEPARATOR = 2;
 
 /**
+ * Workspace of the cover for graphs of up to `capacity` vertices. `mate` and
+ * `stamp` hold -1 between calls (only boundary entries are touched and reset).
+ */
+export interface CoverWork { mate: Int32Array; stamp: Int32Array; parent: Int32Array; queue: Int32Array; boundary: Int32Array }
+
+export function coverWork(capacity: number): CoverWork {
+  return {
+    mate: new Int32Array(capacity).fill(-1), stamp: new Int32Array(capacity).fill(-1),
+    parent: new Int32Array(capacity), queue: new Int32Array(capacity), boundary: new Int32Array(capacity),
+  };
+}
+
+/**
  * Turns a 2-way labelling into a vertex separator in place (label 2), choosing
  * the lightest of the König cover and the two one-sided boundaries (a boundary
  * on a tie: it keeps the parts' shapes simple).
  */
-export function vertexSeparatorFromCut(g: WGraph, label: Int8Array): void {
-  const n = g.n;
-  const boundary: number[] = [];
+export function vertexSeparatorFromCut(g: WGraph, label: Int8Array, w: CoverWork): void {
+  const { boundary, mate, stamp } = w;
+  let count = 0;
   let w0 = 0;
   let w1 = 0;
-  for (let v = 0; v < n; v++) {
-    for (let p = g.xadj[v]; p < g.xadj[v + 1]; p++) {
-      if (label[g.adj[p]] !== label[v]) {
-        boundary.push(v);
-        if (label[v] === 0) w0 += g.vwgt[v]; else w1 += g.vwgt[v];
+  for (let v = 0; v < g.n; v++) {
+    const s = label[v];
+    for (let p = g.xadj[v], pe = g.xadj[v + 1]; p < pe; p++) {
+      if (label[g.adj[p]] !== s) {
+        boundary[count++] = v;
+        if (s === 0) w0 += g.vwgt[v]; else w1 += g.vwgt[v];
         break;
       }
     }
   }
-  const cover = minimumCover(g, label, boundary);
+  const list = boundary.subarray(0, count);
+  matchBoundary(g, label, list, w);
+  for (let i = 0; i < count; i++) stamp[list[i]] = -1;
+  alternatingReach(g, label, list, w);
+  // cover = (left ∖ Z) ∪ (right ∩ Z); stamp[v] === REACHED marks Z
   let wc = 0;
-  for (const v of cover) wc += g.vwgt[v];
-  if (wc < w0 && wc < w1) for (const v of cover) label[v] = SEPARATOR;
-  else {
-    const side = w0 <= w1 ? 0 : 1;
-    for (const v of boundary) if (label[v] === side) label[v] = SEPARATOR;
+  for (let i = 0; i < count; i++) {
+    const v = list[i];
+    if ((label[v] === 0) !== (stamp[v] === REACHED)) wc += g.vwgt[v];
+  }
+  const useCover = wc < w0 && wc < w1;
+  const side = w0 <= w1 ? 0 : 1;
+  for (let i = 0; i < count; i++) {
+    const v = list[i];
+    const inCover = (label[v] === 0) !== (stamp[v] === REACHED);
+    mate[v] = -1;
+    stamp[v] = -1;
+    if (useCover ? inCover : label[v] === side) label[v] = SEPARATOR;
   }
 }
 
-/** Minimum vertex cover of the cut edges between boundary vertices. */
-function minimumCover(g: WGraph, label: Int8Array, boundary: number[]): number[] {
-  const n = g.n;
-  const mate = new Int32Array(n).fill(-1);
-  const stamp = new Int32Array(n).fill(-1);
-  const parent = new Int32Array(n);
-  const queue = new Int32Array(n);
-  const left = boundary.filter((v) => label[v] === 0);
-  for (const v of left) {
+const REACHED = -2;
+
+/** Maximum matching of the cut edges: greedy start, then augmenting paths from each free left vertex. */
+function matchBoundary(g: WGraph, label: Int8Array, list: Int32Array, w: CoverWork): void {
+  const { mate } = w;
+  for (let i = 0; i < list.length; i++) {
+    const v = list[i];
+    if (label[v] !== 0) continue;
     for (let p = g.xadj[v]; p < g.xadj[v + 1]; p++) {
       const u = g.adj[p];
       if (label[u] === 1 && mate[u] === -1) { mate[u] = v; mate[v] = u; break; }
     }
   }
-  for (const v of left) if (mate[v] === -1) augment(g, label, v, { mate, stamp, parent, queue });
-  const reached = stamp.fill(-1);
-  alternatingReach(g, label, left, mate, reached, queue);
-  return boundary.filter((v) => (label[v] === 0) !== (reached[v] === 1));
+  for (let i = 0; i < list.length; i++) {
+    const v = list[i];
+    if (label[v] === 0 && mate[v] === -1) augment(g, label, v, w);
+  }
 }
 
-interface MatchWork { mate: Int32Array; stamp: Int32Array; parent: Int32Array; queue: Int32Array }
-
 /** Breadth-first search for an augmenting path from free left vertex `root`; flips it if found. */
-function augment(g: WGraph, label: Int8Array, root: number, w: MatchWork): boolean {
+function augment(g: WGraph, label: Int8Array, root: number, w: CoverWork): boolean {
   const { mate, stamp, parent, queue } = w;
   let tail = 0;
   queue[tail++] = root;
@@ -94,17 +116,21 @@ function augment(g: WGraph, label: Int8Array, root: number, w: MatchWork): boole
 }
 
 /** Z: vertices reachable from free left vertices by non-matching (left→right) then matching (right→left) edges. */
-function alternatingReach(g: WGraph, label: Int8Array, left: number[], mate: Int32Array, reached: Int32Array, queue: Int32Array): void {
+function alternatingReach(g: WGraph, label: Int8Array, list: Int32Array, w: CoverWork): void {
+  const { mate, stamp: reached, queue } = w;
   let tail = 0;
-  for (const v of left) if (mate[v] === -1) { reached[v] = 1; queue[tail++] = v; }
+  for (let i = 0; i < list.length; i++) {
+    const v = list[i];
+    if (label[v] === 0 && mate[v] === -1) { reached[v] = REACHED; queue[tail++] = v; }
+  }
   for (let head = 0; head < tail; head++) {
     const v = queue[head];
     for (let p = g.xadj[v]; p < g.xadj[v + 1]; p++) {
       const u = g.adj[p];
-      if (label[u] !== 1 || reached[u] === 1) continue;
-      reached[u] = 1;
+      if (label[u] !== 1 || reached[u] === REACHED) continue;
+      reached[u] = REACHED;
       const m = mate[u];
-      if (m !== -1 && reached[m] !== 1) { reached[m] = 1; queue[tail++] = m; }
+      if (m !== -1 && reached[m] !== REACHED) { reached[m] = REACHED; queue[tail++] = m; }
     }
   }
 }
