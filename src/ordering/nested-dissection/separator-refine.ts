@@ -23,12 +23,20 @@ export function separatorState(g: WGraph, label: Int8Array): SeparatorState {
   return { label, weight };
 }
 
-/** Gain of moving separator vertex v into part t. */
-function gainTo(g: WGraph, label: Int8Array, v: number, t: number): number {
-  const other = 1 - t;
-  let gain = g.vwgt[v];
-  for (let p = g.xadj[v], pe = g.xadj[v + 1]; p < pe; p++) if (label[g.adj[p]] === other) gain -= g.vwgt[g.adj[p]];
-  return gain;
+/**
+ * Queues separator vertex v in both heaps: its gain for part t is its weight
+ * minus the weight of its neighbours in the other part (one adjacency scan for both).
+ */
+function pushBoth(g: WGraph, label: Int8Array, v: number, heaps: FmWork["heaps"]): void {
+  let in0 = 0;
+  let in1 = 0;
+  for (let p = g.xadj[v], pe = g.xadj[v + 1]; p < pe; p++) {
+    const u = g.adj[p];
+    const l = label[u];
+    if (l === 0) in0 += g.vwgt[u]; else if (l === 1) in1 += g.vwgt[u];
+  }
+  heaps[0].push(v, g.vwgt[v] - in1);
+  heaps[1].push(v, g.vwgt[v] - in0);
 }
 
 /** Runs up to `passes` separator-refinement passes in place. */
@@ -90,8 +98,7 @@ function separatorPass(g: WGraph, st: SeparatorState, maxPart: number, w: FmWork
   const list = w.separator[0];
   for (let i = 0; i < count; i++) {
     const v = list[i];
-    heaps[0].push(v, gainTo(g, label, v, 0));
-    heaps[1].push(v, gainTo(g, label, v, 1));
+    pushBoth(g, label, v, heaps);
   }
   log.length = 0;
   const limit = Math.max(15, Math.min(150, g.n >> 6));
@@ -164,8 +171,7 @@ function moveInto(g: WGraph, st: SeparatorState, v: number, t: number, w: FmWork
       if (label[x] === 2 && heaps[t].has(x)) heaps[t].update(x, heaps[t].key[x] + vwgt[u]);
     }
     if (!moved[u]) {
-      heaps[0].push(u, gainTo(g, label, u, 0));
-      heaps[1].push(u, gainTo(g, label, u, 1));
+      pushBoth(g, label, u, heaps);
     }
   }
 }
