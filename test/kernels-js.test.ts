@@ -8,20 +8,11 @@
 import fc from "fast-check";
 import { CholeskyDecomposition, Matrix } from "ml-matrix";
 import { describe, expect, it } from "vitest";
+import { randoms } from "./helpers/random.js";
 import { jsKernels } from "../src/kernels/js/index.js";
 
 const EPS = 2 ** -52;
 
-/** Deterministic pseudo-random doubles in [-1, 1) (xorshift32). */
-function randoms(len: number, seed: number): Float64Array {
-  const out = new Float64Array(len);
-  let s = seed | 0 || 1;
-  for (let i = 0; i < len; i++) {
-    s ^= s << 13; s ^= s >>> 17; s ^= s << 5;
-    out[i] = ((s >>> 0) / 2 ** 32) * 2 - 1;
-  }
-  return out;
-}
 
 const size = fc.oneof(fc.integer({ min: 1, max: 9 }), fc.integer({ min: 10, max: 70 }));
 const pad = fc.integer({ min: 0, max: 5 });

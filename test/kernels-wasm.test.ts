@@ -14,6 +14,7 @@ import fc from "fast-check";
 import { CholeskyDecomposition, Matrix } from "ml-matrix";
 import wabtInit from "wabt";
 import { describe, expect, it } from "vitest";
+import { randoms } from "./helpers/random.js";
 import { CapacityError, SeptumError } from "../src/errors.js";
 import { autoChoice, getKernels } from "../src/kernels/index.js";
 import { jsKernels } from "../src/kernels/js/index.js";
@@ -26,16 +27,6 @@ import { TILE_MULADDS, compileKernels, fusedText } from "../scripts/wasm-source.
 
 const EPS = 2 ** -52;
 
-/** Deterministic pseudo-random doubles in [-1, 1) (xorshift32). */
-function randoms(len: number, seed: number): Float64Array {
-  const out = new Float64Array(len);
-  let s = seed | 0 || 1;
-  for (let i = 0; i < len; i++) {
-    s ^= s << 13; s ^= s >>> 17; s ^= s << 5;
-    out[i] = ((s >>> 0) / 2 ** 32) * 2 - 1;
-  }
-  return out;
-}
 
 /** Copy an m×n column-major block at off (leading dim ld) of S into an ml-matrix Matrix. */
 function toMatrix(S: Float64Array, m: number, n: number, off: number, ld: number): Matrix {

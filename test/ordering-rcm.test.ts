@@ -7,20 +7,8 @@ import fc from "fast-check";
 import { reverseCuthillMcKee } from "../src/ordering/rcm.js";
 import { InputError } from "../src/errors.js";
 import type { Graph } from "../src/graph/types.js";
+import { expectPermutation, graphFromEdges } from "./helpers/graphs.js";
 
-function graphFromEdges(n: number, edges: ReadonlyArray<readonly [number, number]>): Graph {
-  const sets: Set<number>[] = Array.from({ length: n }, () => new Set<number>());
-  for (const [a, b] of edges) {
-    if (a === b) continue;
-    sets[a].add(b);
-    sets[b].add(a);
-  }
-  const offsets = new Int32Array(n + 1);
-  for (let v = 0; v < n; v++) offsets[v + 1] = offsets[v] + sets[v].size;
-  const neighbours = new Int32Array(offsets[n]);
-  for (let v = 0; v < n; v++) neighbours.set([...sets[v]].sort((x, y) => x - y), offsets[v]);
-  return { n, offsets, neighbours };
-}
 
 /** k×k 5-point grid with vertex labels scrambled by `label` (old grid index → vertex). */
 function grid(k: number, label: (v: number) => number = (v) => v): Graph {
@@ -35,18 +23,6 @@ function grid(k: number, label: (v: number) => number = (v) => v): Graph {
   return graphFromEdges(k * k, edges);
 }
 
-/** Every vertex exactly once (definition of a permutation); reports the first bad position. */
-function expectPermutation(perm: Int32Array, n: number): void {
-  expect(perm.length).toBe(n);
-  const seen = new Uint8Array(n);
-  let bad = -1;
-  for (let k = 0; k < n && bad < 0; k++) {
-    const v = perm[k];
-    if (!(v >= 0 && v < n) || seen[v]) bad = k;
-    else seen[v] = 1;
-  }
-  expect(bad).toBe(-1);
-}
 
 /** max |pos(u) − pos(v)| over edges: the half-bandwidth of P·A·Pᵀ (definition). */
 function bandwidth(g: Graph, perm: Int32Array): number {

@@ -1,0 +1,31 @@
+/** Graph helpers shared by the ordering tests. */
+import { expect } from "vitest";
+import type { Graph } from "../../src/graph/types.js";
+
+/** Graph from an undirected edge list (duplicates and self loops dropped). */
+export function graphFromEdges(n: number, edges: ReadonlyArray<readonly [number, number]>): Graph {
+  const sets: Set<number>[] = Array.from({ length: n }, () => new Set<number>());
+  for (const [a, b] of edges) {
+    if (a === b) continue;
+    sets[a].add(b);
+    sets[b].add(a);
+  }
+  const offsets = new Int32Array(n + 1);
+  for (let v = 0; v < n; v++) offsets[v + 1] = offsets[v] + sets[v].size;
+  const neighbours = new Int32Array(offsets[n]);
+  for (let v = 0; v < n; v++) neighbours.set([...sets[v]].sort((x, y) => x - y), offsets[v]);
+  return { n, offsets, neighbours };
+}
+
+/** Every vertex exactly once (definition of a permutation); reports the first bad position. */
+export function expectPermutation(perm: Int32Array, n: number): void {
+  expect(perm.length).toBe(n);
+  const seen = new Uint8Array(n);
+  let bad = -1;
+  for (let k = 0; k < n && bad < 0; k++) {
+    const v = perm[k];
+    if (!(v >= 0 && v < n) || seen[v]) bad = k;
+    else seen[v] = 1;
+  }
+  expect(bad).toBe(-1);
+}
