@@ -41,9 +41,14 @@ export interface HierarchyArenas {
   edgeWeights: Int32Arena;
 }
 
-/** Arenas for hierarchies of a graph with n vertices and m adjacency entries. */
+/**
+ * Arenas for hierarchies of a graph with n vertices and m adjacency entries.
+ * Levels shrink by about half on meshes, so all levels but the smallest fit
+ * (those few fall back to fresh arrays).
+ */
 export function hierarchyArenas(n: number, m: number): HierarchyArenas {
-  return { vertices: new Int32Arena(8 * n + 64), adjacency: new Int32Arena(2 * m + 64), edgeWeights: new Int32Arena(2 * m + 64) };
+  const edges = Math.ceil(1.5 * m) + 64;
+  return { vertices: new Int32Arena(8 * n + 64), adjacency: new Int32Arena(edges), edgeWeights: new Int32Arena(edges) };
 }
 
 /** Resets all three arenas. */
