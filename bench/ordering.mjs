@@ -10,11 +10,13 @@
 //
 //   npm run build && node bench/ordering.mjs            # every problem
 //   RUNS=3 node bench/ordering.mjs grid2-300 grid3-40   # a selection
+//   ONLY=minimum-degree,nested-dissection RUNS=3 node bench/ordering.mjs grid2-1000   # some orderings only
 import { SparseMatrix, adjacencyGraph, analyze, computeOrdering } from "../dist/index.js";
 import { median } from "./common.mjs";
 
 const RUNS = Number(process.env.RUNS ?? 1);
 const SEED = Number(process.env.SEED ?? 1);
+const ONLY = process.env.ONLY ? new Set(process.env.ONLY.split(",")) : null;
 
 /** Lower-triangle matrix with a dominant diagonal from an edge callback (pattern is all that matters here). */
 function fromEdges(n, add) {
@@ -168,6 +170,7 @@ for (const name of selected) {
   }
   let mdFlops = NaN;
   for (const [label, options] of runs) {
+    if (ONLY && !ONLY.has(label)) continue;
     const m = measure(graph, options);
     const stats = analyze(A, { ordering: m.permutation, amalgamation: false }).stats;
     if (label === "minimum-degree") mdFlops = stats.flops;
