@@ -8,7 +8,7 @@ import { adjacencyGraph } from "../graph/adjacency.js";
 import type { SparseMatrix } from "../matrix/sparse.js";
 import { requireSquare, storageForm } from "../matrix/symmetric.js";
 import { predictWorkspace } from "../numeric/workspace.js";
-import { computeOrdering, DISSECTION_THRESHOLD, type OrderingOptions } from "../ordering/index.js";
+import { computeOrdering, DISSECTION_THRESHOLD, type OrderingChoice, type OrderingOptions } from "../ordering/index.js";
 import type { Graph } from "../graph/types.js";
 import type { OrderingResult } from "../ordering/types.js";
 import { countFill, symbolicFactorization, type AmalgamationOptions } from "../symbolic/index.js";
@@ -51,8 +51,6 @@ export interface AnalyzeOptions {
   /** Stops the analysis with AbortedError. */
   signal?: AbortSignal;
 }
-
-type OrderingChoice = OrderingName | Int32Array;
 
 const NAMES: readonly string[] = ["nested-dissection", "minimum-degree", "reverse-cuthill-mckee", "natural"];
 
