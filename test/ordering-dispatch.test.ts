@@ -1,21 +1,12 @@
 import { describe, expect, it } from "vitest";
 import { AbortedError, InputError } from "../src/errors.js";
 import type { Graph } from "../src/graph/types.js";
+import { graphOf } from "./helpers/graphs.js";
 import { computeOrdering, DISSECTION_THRESHOLD } from "../src/ordering/index.js";
 import type { SeparatorTree } from "../src/ordering/types.js";
 import { columnCounts } from "../src/symbolic/column-counts.js";
 import { eliminationTree, postorder } from "../src/symbolic/etree.js";
 
-function graphOf(n: number, add: (edge: (a: number, b: number) => void) => void): Graph {
-  const sets: Set<number>[] = Array.from({ length: n }, () => new Set<number>());
-  add((a, b) => { if (a !== b) { sets[a].add(b); sets[b].add(a); } });
-  const offsets = new Int32Array(n + 1);
-  let total = 0;
-  for (let v = 0; v < n; v++) { total += sets[v].size; offsets[v + 1] = total; }
-  const neighbours = new Int32Array(total);
-  for (let v = 0; v < n; v++) neighbours.set([...sets[v]].sort((x, y) => x - y), offsets[v]);
-  return { n, offsets, neighbours };
-}
 const grid2 = (k: number): Graph => graphOf(k * k, (e) => {
   for (let v = 0; v < k * k; v++) { if (v % k + 1 < k) e(v, v + 1); if (v + k < k * k) e(v, v + k); }
 });

@@ -1,6 +1,7 @@
 import fc from "fast-check";
 import { describe, expect, it } from "vitest";
 import type { Graph } from "../src/graph/types.js";
+import { graphOf } from "./helpers/graphs.js";
 import { validateCoordinates } from "../src/ordering/coordinates.js";
 import { minimumDegree } from "../src/ordering/minimum-degree.js";
 import { Int32Arena } from "../src/ordering/nested-dissection/arena.js";
@@ -12,16 +13,6 @@ import { columnCounts } from "../src/symbolic/column-counts.js";
 import { eliminationTree, postorder } from "../src/symbolic/etree.js";
 
 // ---------- graphs ----------
-function graphOf(n: number, add: (edge: (a: number, b: number) => void) => void): Graph {
-  const sets: Set<number>[] = Array.from({ length: n }, () => new Set<number>());
-  add((a, b) => { if (a !== b) { sets[a].add(b); sets[b].add(a); } });
-  const offsets = new Int32Array(n + 1);
-  let total = 0;
-  for (let v = 0; v < n; v++) { total += sets[v].size; offsets[v + 1] = total; }
-  const neighbours = new Int32Array(total);
-  for (let v = 0; v < n; v++) neighbours.set([...sets[v]].sort((x, y) => x - y), offsets[v]);
-  return { n, offsets, neighbours };
-}
 const grid2 = (k: number, nine = false): Graph => graphOf(k * k, (e) => {
   for (let i = 0; i < k; i++) for (let j = 0; j < k; j++) {
     const v = i * k + j;

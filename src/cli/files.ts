@@ -30,16 +30,20 @@ export function readBytes(io: CliIO, path: string): Uint8Array {
   }
 }
 
-/** A square sparse matrix from a Matrix Market `coordinate` file. */
-export function readMatrixFile(io: CliIO, path: string): { matrix: SparseMatrix; symmetricFile: boolean } {
+/** Parse a Matrix Market file; a format error names the file and the line. */
+function readMarketFile(io: CliIO, path: string): ReturnType<typeof readMatrixMarket> {
   const bytes = readBytes(io, path);
-  let contents;
   try {
-    contents = readMatrixMarket(bytes);
+    return readMatrixMarket(bytes);
   } catch (e) {
     if (e instanceof MatrixMarketError) throw new FileError(`${path}: ${e.message}`);
     throw e;
   }
+}
+
+/** A square sparse matrix from a Matrix Market `coordinate` file. */
+export function readMatrixFile(io: CliIO, path: string): { matrix: SparseMatrix; symmetricFile: boolean } {
+  const contents = readMarketFile(io, path);
   if (contents.kind !== "sparse") throw new FileError(`${path}: is a dense 'array' file, expected a sparse 'coordinate' matrix`);
   const A = contents.matrix;
   if (A.nrows !== A.ncols) throw new FileError(`${path}: the matrix is ${A.nrows} × ${A.ncols}, expected a square matrix`);
@@ -49,14 +53,7 @@ export function readMatrixFile(io: CliIO, path: string): { matrix: SparseMatrix;
 
 /** Right-hand sides (n × k, column-major) from an `array` or `coordinate` file. */
 export function readRhsFile(io: CliIO, path: string, n: number): { values: Float64Array; columns: number } {
-  const bytes = readBytes(io, path);
-  let contents;
-  try {
-    contents = readMatrixMarket(bytes);
-  } catch (e) {
-    if (e instanceof MatrixMarketError) throw new FileError(`${path}: ${e.message}`);
-    throw e;
-  }
+  const contents = readMarketFile(io, path);
   const rows = contents.kind === "dense" ? contents.nrows : contents.matrix.nrows;
   const cols = contents.kind === "dense" ? contents.ncols : contents.matrix.ncols;
   if (rows !== n) throw new FileError(`${path}: has ${rows} rows, but the matrix has ${n}`);
