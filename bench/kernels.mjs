@@ -77,11 +77,14 @@ for (const n of sizes) {
   const w = kernelRates(getKernels("wasm"), n);
   const j = withJs ? kernelRates(getKernels("js"), n) : { gemm: NaN, syrk: NaN, potrf: NaN };
   rows.push({ n, wasm: w, js: j });
+  const jsPart = withJs
+    ? `  |  js gemm ${j.gemm.toFixed(1).padStart(5)}` +
+      `  syrk ${j.syrk.toFixed(1).padStart(5)}  potrf ${j.potrf.toFixed(1).padStart(5)}` +
+      `  |  wasm/js gemm ${(w.gemm / j.gemm).toFixed(2)}  potrf ${(w.potrf / j.potrf).toFixed(2)}`
+    : "";
   console.log(
     `n=${String(n).padStart(4)}  wasm gemm ${w.gemm.toFixed(1).padStart(5)}  syrk ${w.syrk.toFixed(1).padStart(5)}` +
-    `  potrf ${w.potrf.toFixed(1).padStart(5)}  |  js gemm ${j.gemm.toFixed(1).padStart(5)}` +
-    `  syrk ${j.syrk.toFixed(1).padStart(5)}  potrf ${j.potrf.toFixed(1).padStart(5)}` +
-    `  |  wasm/js gemm ${(w.gemm / j.gemm).toFixed(2)}  potrf ${(w.potrf / j.potrf).toFixed(2)}`);
+    `  potrf ${w.potrf.toFixed(1).padStart(5)}${jsPart}`);
 }
 const micro = rows.find((r) => r.n === 256) ?? rows[rows.length - 1];
 
@@ -106,6 +109,7 @@ for (const k of grids) {
   const gfW = st.flops / res.wasm / 1e9, gfJ = st.flops / res.js / 1e9;
   console.log(
     `grid ${k}^3: n=${st.n} nnzL=${st.nnzL} flops=${st.flops.toExponential(2)} analyze ${tAnalyze.toFixed(2)} s | ` +
-    `factor wasm ${res.wasm.toFixed(2)} s (${gfW.toFixed(1)} GF/s)  js ${res.js?.toFixed(2)} s (${gfJ.toFixed(1)} GF/s) | ` +
-    `wasm/js ${(res.js / res.wasm).toFixed(2)}x  factor ÷ wasm syrk(${micro.n}) ${(gfW / micro.wasm.syrk).toFixed(2)}`);
+    `factor wasm ${res.wasm.toFixed(2)} s (${gfW.toFixed(1)} GF/s)` +
+    (withJs ? `  js ${res.js.toFixed(2)} s (${gfJ.toFixed(1)} GF/s) | wasm/js ${(res.js / res.wasm).toFixed(2)}x` : "") +
+    ` | factor ÷ wasm syrk(${micro.n}) ${(gfW / micro.wasm.syrk).toFixed(2)}`);
 }
