@@ -7,7 +7,8 @@ import { minimumDegree } from "../src/ordering/minimum-degree.js";
 import { Int32Arena } from "../src/ordering/nested-dissection/arena.js";
 import { nestedDissection } from "../src/ordering/nested-dissection/index.js";
 import { coverWork, SEPARATOR, vertexSeparatorFromCut } from "../src/ordering/nested-dissection/separator.js";
-import { weightedGraph } from "../src/ordering/nested-dissection/wgraph.js";
+import { evaluate, fmWork } from "../src/ordering/nested-dissection/refine.js";
+import { inducedSubgraph, weightedGraph } from "../src/ordering/nested-dissection/wgraph.js";
 import type { SeparatorTree } from "../src/ordering/types.js";
 import { columnCounts } from "../src/symbolic/column-counts.js";
 import { eliminationTree, postorder } from "../src/symbolic/etree.js";
@@ -249,6 +250,48 @@ describe("nested dissection: edge cut to vertex separator (König cover) with a 
       expect(size).toBe(expected);
       expect(work.mate.every((x) => x === -1)).toBe(true);
       expect(work.stamp.every((x) => x === -1)).toBe(true);
+    }), { numRuns: 200 });
+  });
+
+  it("gives the same separator from the refinement's boundary list as from its own scan (property)", () => {
+    const small = fc.integer({ min: 2, max: 30 }).chain((n) => fc.tuple(
+      fc.constant(n), fc.array(fc.tuple(fc.nat(n - 1), fc.nat(n - 1)), { maxLength: 3 * n }), fc.array(fc.boolean(), { minLength: n, maxLength: n })));
+    const work = coverWork(30);
+    const fm = fmWork(30, 200);
+    fc.assert(fc.property(small, ([n, edges, side]) => {
+      const g = weightedGraph(graphOf(n, (e) => { for (const [a, b] of edges) e(a, b); }));
+      const scanned = Int8Array.from(side, (s) => (s ? 1 : 0));
+      const listed = scanned.slice();
+      evaluate(g, listed, fm); // fills fm.boundary; FM moves leave it unsorted, so hand it over reversed
+      const list = fm.boundary.slice(0, fm.boundaryCount).reverse();
+      vertexSeparatorFromCut(g, scanned, work);
+      vertexSeparatorFromCut(g, listed, work, { list, count: list.length });
+      expect(Array.from(listed)).toEqual(Array.from(scanned));
+    }), { numRuns: 200 });
+  });
+});
+
+describe("nested dissection: induced subgraph", () => {
+  it("keeps exactly the edges among the chosen vertices, with their weights (property; outside reference: the edge list filtered by hand)", () => {
+    const input = fc.integer({ min: 1, max: 25 }).chain((n) => fc.tuple(
+      fc.constant(n), fc.array(fc.tuple(fc.nat(n - 1), fc.nat(n - 1)), { maxLength: 3 * n }), fc.array(fc.boolean(), { minLength: n, maxLength: n })));
+    fc.assert(fc.property(input, ([n, edges, keep]) => {
+      const plain = graphOf(n, (e) => { for (const [a, b] of edges) e(a, b); });
+      const g = weightedGraph(plain);
+      const chosen = Int32Array.from(keep.flatMap((k, v) => (k ? [v] : [])));
+      const localOf = new Int32Array(n).fill(-1);
+      const sub = inducedSubgraph(g, chosen, localOf);
+      expect(localOf.every((x) => x === -1)).toBe(true);
+      const pairs = (a: Int32Array, x: Int32Array, map: (v: number) => number) => {
+        const out: string[] = [];
+        for (let v = 0; v + 1 < x.length; v++) for (let p = x[v]; p < x[v + 1]; p++) out.push(`${map(v)}-${map(a[p])}`);
+        return out.sort();
+      };
+      const expected = pairs(plain.neighbours, plain.offsets, (v) => v).filter((s) => s.split("-").every((v) => keep[Number(v)]));
+      expect(pairs(sub.adj, sub.xadj, (v) => chosen[v])).toEqual(expected);
+      expect(sub.adj.length).toBe(sub.xadj[sub.n]);
+      expect(sub.ewgt.length).toBe(sub.adj.length);
+      expect(sub.totalWeight).toBe(chosen.length);
     }), { numRuns: 200 });
   });
 });

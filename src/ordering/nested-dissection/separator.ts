@@ -28,22 +28,17 @@ export function coverWork(capacity: number): CoverWork {
 /**
  * Turns a 2-way labelling into a vertex separator in place (label 2), choosing
  * the lightest of the König cover and the two one-sided boundaries (a boundary
- * on a tie: it keeps the parts' shapes simple).
+ * on a tie: it keeps the parts' shapes simple). `known` is the boundary of the
+ * labelling when the caller keeps it (the edge refinement does), saving a scan of the graph.
  */
-export function vertexSeparatorFromCut(g: WGraph, label: Int8Array, w: CoverWork): void {
+export function vertexSeparatorFromCut(g: WGraph, label: Int8Array, w: CoverWork, known?: { list: Int32Array; count: number }): void {
   const { boundary, mate, stamp } = w;
-  let count = 0;
+  const count = known === undefined ? scanBoundary(g, label, boundary) : sortedCopy(known.list, known.count, boundary);
   let w0 = 0;
   let w1 = 0;
-  for (let v = 0; v < g.n; v++) {
-    const s = label[v];
-    for (let p = g.xadj[v], pe = g.xadj[v + 1]; p < pe; p++) {
-      if (label[g.adj[p]] !== s) {
-        boundary[count++] = v;
-        if (s === 0) w0 += g.vwgt[v]; else w1 += g.vwgt[v];
-        break;
-      }
-    }
+  for (let i = 0; i < count; i++) {
+    const v = boundary[i];
+    if (label[v] === 0) w0 += g.vwgt[v]; else w1 += g.vwgt[v];
   }
   const list = boundary.subarray(0, count);
   matchBoundary(g, label, list, w);
@@ -67,6 +62,25 @@ export function vertexSeparatorFromCut(g: WGraph, label: Int8Array, w: CoverWork
 }
 
 const REACHED = -2;
+
+/** Writes the vertices with a neighbour in the other part to `out`, ascending; returns their number. */
+function scanBoundary(g: WGraph, label: Int8Array, out: Int32Array): number {
+  let count = 0;
+  for (let v = 0; v < g.n; v++) {
+    const s = label[v];
+    for (let p = g.xadj[v], pe = g.xadj[v + 1]; p < pe; p++) {
+      if (label[g.adj[p]] !== s) { out[count++] = v; break; }
+    }
+  }
+  return count;
+}
+
+/** Copies a boundary list kept by the refinement to `out` in ascending order (the order of a scan). */
+function sortedCopy(list: Int32Array, count: number, out: Int32Array): number {
+  out.set(list.subarray(0, count));
+  out.subarray(0, count).sort();
+  return count;
+}
 
 /** Maximum matching of the cut edges: greedy start, then augmenting paths from each free left vertex. */
 function matchBoundary(g: WGraph, label: Int8Array, list: Int32Array, w: CoverWork): void {
