@@ -288,9 +288,9 @@ describe("nested dissection: induced subgraph", () => {
         return out.sort();
       };
       const expected = pairs(plain.neighbours, plain.offsets, (v) => v).filter((s) => s.split("-").every((v) => keep[Number(v)]));
-      expect(pairs(sub.adj, sub.xadj, (v) => chosen[v])).toEqual(expected);
-      expect(sub.adj.length).toBe(sub.xadj[sub.n]);
-      expect(sub.ewgt.length).toBe(sub.adj.length);
+      expect(pairs(sub.neighbours, sub.offsets, (v) => chosen[v])).toEqual(expected);
+      expect(sub.neighbours.length).toBe(sub.offsets[sub.n]);
+      expect(sub.edgeWeight.length).toBe(sub.neighbours.length);
       expect(sub.totalWeight).toBe(chosen.length);
     }), { numRuns: 200 });
   });

@@ -62,7 +62,7 @@ export function coordinateCut(g: WGraph, ids: Int32Array, c: Coordinates): Int8A
   let w = 0;
   for (let k = 0; k < g.n && w < g.totalWeight / 2; k++) {
     label[order[k]] = 0;
-    w += g.vwgt[order[k]];
+    w += g.vertexWeight[order[k]];
   }
   return label;
 }

@@ -23,11 +23,11 @@ export function growFrom(g: WGraph, seed: number, heap: MaxHeap, rng: Rng): Int8
       if (next < 0) break;
     }
     label[next] = 0;
-    w0 += g.vwgt[next];
-    for (let p = g.xadj[next]; p < g.xadj[next + 1]; p++) {
-      const u = g.adj[p];
+    w0 += g.vertexWeight[next];
+    for (let p = g.offsets[next]; p < g.offsets[next + 1]; p++) {
+      const u = g.neighbours[p];
       if (label[u] === 0) continue;
-      const w = 2 * g.ewgt[p];
+      const w = 2 * g.edgeWeight[p];
       if (heap.has(u)) heap.update(u, heap.key[u] + w);
       else heap.push(u, cutGainToPart0(g, label, u));
     }
@@ -39,7 +39,7 @@ export function growFrom(g: WGraph, seed: number, heap: MaxHeap, rng: Rng): Int8
 
 function cutGainToPart0(g: WGraph, label: Int8Array, u: number): number {
   let gain = 0;
-  for (let p = g.xadj[u]; p < g.xadj[u + 1]; p++) gain += label[g.adj[p]] === 0 ? g.ewgt[p] : -g.ewgt[p];
+  for (let p = g.offsets[u]; p < g.offsets[u + 1]; p++) gain += label[g.neighbours[p]] === 0 ? g.edgeWeight[p] : -g.edgeWeight[p];
   return gain;
 }
 

@@ -17,7 +17,7 @@ export interface Level {
 
 /** Heavy-edge matching; returns match[v] (v itself when unmatched). */
 export function heavyEdgeMatching(g: WGraph, rng: Rng, maxVertexWeight: number, arena: Int32Arena): Int32Array {
-  const { n, xadj, adj, ewgt, vwgt } = g;
+  const { n, offsets, neighbours, edgeWeight, vertexWeight } = g;
   const match = arena.take(n).fill(-1);
   const visit = blockShuffledOrder(n, rng, arena);
   for (let i = 0; i < n; i++) {
@@ -25,12 +25,12 @@ export function heavyEdgeMatching(g: WGraph, rng: Rng, maxVertexWeight: number, 
     if (match[v] >= 0) continue;
     let best = v;
     let bestW = -1;
-    const room = maxVertexWeight - vwgt[v];
-    for (let p = xadj[v], pe = xadj[v + 1]; p < pe; p++) {
-      const u = adj[p];
-      if (match[u] < 0 && ewgt[p] > bestW && vwgt[u] <= room) {
+    const room = maxVertexWeight - vertexWeight[v];
+    for (let p = offsets[v], pe = offsets[v + 1]; p < pe; p++) {
+      const u = neighbours[p];
+      if (match[u] < 0 && edgeWeight[p] > bestW && vertexWeight[u] <= room) {
         best = u;
-        bestW = ewgt[p];
+        bestW = edgeWeight[p];
       }
     }
     match[v] = best;
@@ -58,42 +58,42 @@ function blockShuffledOrder(n: number, rng: Rng, arena: Int32Arena): Int32Array 
 
 /** Contracts matched pairs into single vertices, summing vertex and parallel-edge weights. */
 export function contract(g: WGraph, match: Int32Array, arenas: HierarchyArenas): Level {
-  const { n, xadj: fx, adj: fa, ewgt: fe, vwgt: fv } = g;
+  const { n, offsets: fx, neighbours: fa, edgeWeight: fe, vertexWeight: fv } = g;
   const coarseOf = arenas.vertices.take(n);
   let nc = 0;
   for (let v = 0; v < n; v++) {
     const u = match[v];
     if (u >= v) { coarseOf[v] = nc; coarseOf[u] = nc; nc++; }
   }
-  const xadj = arenas.vertices.take(nc + 1);
-  const vwgt = arenas.vertices.take(nc);
+  const offsets = arenas.vertices.take(nc + 1);
+  const vertexWeight = arenas.vertices.take(nc);
   const slot = arenas.vertices.take(nc).fill(-1);
-  const adj = arenas.adjacency.take(fa.length);
-  const ewgt = arenas.edgeWeights.take(fa.length);
-  xadj[0] = 0;
+  const neighbours = arenas.adjacency.take(fa.length);
+  const edgeWeight = arenas.edgeWeights.take(fa.length);
+  offsets[0] = 0;
   let k = 0;
   let c = 0;
   for (let v = 0; v < n; v++) {
     const u = match[v];
     if (u < v) continue;
     const start = k;
-    vwgt[c] = fv[v] + (u !== v ? fv[u] : 0);
+    vertexWeight[c] = fv[v] + (u !== v ? fv[u] : 0);
     for (let w = v, side = 0; side < 2; side++, w = u) {
       if (side === 1 && u === v) break;
       for (let p = fx[w], pe = fx[w + 1]; p < pe; p++) {
         const t = coarseOf[fa[p]];
         if (t === c) continue;
         const q = slot[t];
-        if (q >= start) { ewgt[q] += fe[p]; continue; }
+        if (q >= start) { edgeWeight[q] += fe[p]; continue; }
         slot[t] = k;
-        adj[k] = t;
-        ewgt[k++] = fe[p];
+        neighbours[k] = t;
+        edgeWeight[k++] = fe[p];
       }
     }
-    xadj[++c] = k;
+    offsets[++c] = k;
   }
   const graph: WGraph = {
-    n: nc, xadj, adj: arenas.adjacency.trim(adj, k), ewgt: arenas.edgeWeights.trim(ewgt, k), vwgt, totalWeight: g.totalWeight,
+    n: nc, offsets, neighbours: arenas.adjacency.trim(neighbours, k), edgeWeight: arenas.edgeWeights.trim(edgeWeight, k), vertexWeight, totalWeight: g.totalWeight,
   };
   return { graph, coarseOf };
 }

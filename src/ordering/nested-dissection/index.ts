@@ -170,9 +170,9 @@ function placeLeaf(s: State, piece: Piece): void {
 
 /** The plain graph of a piece with each adjacency list sorted ascending. */
 function sortedGraph(g: WGraph): Graph {
-  const neighbours = g.adj.slice();
-  for (let v = 0; v < g.n; v++) neighbours.subarray(g.xadj[v], g.xadj[v + 1]).sort();
-  return { n: g.n, offsets: g.xadj, neighbours };
+  const neighbours = g.neighbours.slice();
+  for (let v = 0; v < g.n; v++) neighbours.subarray(g.offsets[v], g.offsets[v + 1]).sort();
+  return { n: g.n, offsets: g.offsets, neighbours };
 }
 
 /** Nodes were created parents first; reversing lists children before parents. */

@@ -42,7 +42,7 @@ export const defaultBisectOptions: BisectOptions = {
 /** Largest admissible part weight for graph g. */
 export function partBound(g: WGraph, imbalance: number): number {
   let maxV = 0;
-  for (let v = 0; v < g.n; v++) if (g.vwgt[v] > maxV) maxV = g.vwgt[v];
+  for (let v = 0; v < g.n; v++) if (g.vertexWeight[v] > maxV) maxV = g.vertexWeight[v];
   return Math.max(Math.ceil((g.totalWeight * (1 + imbalance)) / 2), Math.ceil((g.totalWeight + maxV) / 2));
 }
 
@@ -118,7 +118,7 @@ export function multilevelSeparator(g: WGraph, rng: Rng, o: BisectOptions, work:
 export function lighter(g: WGraph, a: Int8Array, b: Int8Array): Int8Array {
   const wa = [0, 0, 0];
   const wb = [0, 0, 0];
-  for (let v = 0; v < g.n; v++) { wa[a[v]] += g.vwgt[v]; wb[b[v]] += g.vwgt[v]; }
+  for (let v = 0; v < g.n; v++) { wa[a[v]] += g.vertexWeight[v]; wb[b[v]] += g.vertexWeight[v]; }
   if (wa[2] !== wb[2]) return wa[2] < wb[2] ? a : b;
   return Math.abs(wa[0] - wa[1]) <= Math.abs(wb[0] - wb[1]) ? a : b;
 }

@@ -53,18 +53,18 @@ export function fmWork(capacity: number, edges: number): FmWork {
 
 /** Computes part weights, cut, degrees and boundary of a labelling; O(edges). */
 export function evaluate(g: WGraph, label: Int8Array, w: FmWork): Bisection {
-  const { xadj, adj, ewgt, vwgt } = g;
+  const { offsets, neighbours, edgeWeight, vertexWeight } = g;
   for (let i = 0; i < w.boundaryCount; i++) w.boundaryPos[w.boundary[i]] = -1;
   w.boundaryCount = 0;
   let cut = 0;
   const weight: [number, number] = [0, 0];
   for (let v = 0; v < g.n; v++) {
     const s = label[v];
-    weight[s] += vwgt[v];
+    weight[s] += vertexWeight[v];
     let inside = 0;
     let outside = 0;
-    for (let p = xadj[v], pe = xadj[v + 1]; p < pe; p++) {
-      if (label[adj[p]] === s) inside += ewgt[p]; else outside += ewgt[p];
+    for (let p = offsets[v], pe = offsets[v + 1]; p < pe; p++) {
+      if (label[neighbours[p]] === s) inside += edgeWeight[p]; else outside += edgeWeight[p];
     }
     w.id[v] = inside;
     w.ed[v] = outside;
@@ -142,7 +142,7 @@ function pickSide(g: WGraph, b: Bisection, maxPart: number, heaps: [MaxHeap, Max
     if (heaps[s].size === 0) continue;
     const v = heaps[s].top();
     const overweight = b.weight[s] > maxPart;
-    if (!overweight && b.weight[1 - s] + g.vwgt[v] > maxPart) continue;
+    if (!overweight && b.weight[1 - s] + g.vertexWeight[v] > maxPart) continue;
     const gain = heaps[s].topKey() + (overweight ? 1 << 29 : 0);
     if (gain > bestGain || (gain === bestGain && b.weight[s] > b.weight[best])) { best = s; bestGain = gain; }
   }
@@ -151,19 +151,19 @@ function pickSide(g: WGraph, b: Bisection, maxPart: number, heaps: [MaxHeap, Max
 
 /** Moves v to the other part, updating degrees, boundary and (when `queue`) the heaps. */
 function moveVertex(g: WGraph, b: Bisection, v: number, w: FmWork, queue: boolean): void {
-  const { xadj, adj, ewgt } = g;
+  const { offsets, neighbours, edgeWeight } = g;
   const { id, ed, heaps, moved } = w;
   const label = b.label;
   const s = label[v];
   b.cut -= ed[v] - id[v];
   label[v] = 1 - s;
-  b.weight[s] -= g.vwgt[v];
-  b.weight[1 - s] += g.vwgt[v];
+  b.weight[s] -= g.vertexWeight[v];
+  b.weight[1 - s] += g.vertexWeight[v];
   const t = id[v]; id[v] = ed[v]; ed[v] = t;
   if (ed[v] > 0) addBoundary(w, v); else dropBoundary(w, v);
-  for (let p = xadj[v], pe = xadj[v + 1]; p < pe; p++) {
-    const u = adj[p];
-    const e = ewgt[p];
+  for (let p = offsets[v], pe = offsets[v + 1]; p < pe; p++) {
+    const u = neighbours[p];
+    const e = edgeWeight[p];
     if (label[u] === s) { id[u] -= e; ed[u] += e; } else { id[u] += e; ed[u] -= e; }
     if (ed[u] > 0) addBoundary(w, u); else dropBoundary(w, u);
     if (!queue || moved[u]) continue;

@@ -19,7 +19,7 @@ export interface SeparatorState {
 
 export function separatorState(g: WGraph, label: Int8Array): SeparatorState {
   const weight: [number, number, number] = [0, 0, 0];
-  for (let v = 0; v < g.n; v++) weight[label[v]] += g.vwgt[v];
+  for (let v = 0; v < g.n; v++) weight[label[v]] += g.vertexWeight[v];
   return { label, weight };
 }
 
@@ -30,13 +30,13 @@ export function separatorState(g: WGraph, label: Int8Array): SeparatorState {
 function pushBoth(g: WGraph, label: Int8Array, v: number, heaps: FmWork["heaps"]): void {
   let in0 = 0;
   let in1 = 0;
-  for (let p = g.xadj[v], pe = g.xadj[v + 1]; p < pe; p++) {
-    const u = g.adj[p];
+  for (let p = g.offsets[v], pe = g.offsets[v + 1]; p < pe; p++) {
+    const u = g.neighbours[p];
     const l = label[u];
-    if (l === 0) in0 += g.vwgt[u]; else if (l === 1) in1 += g.vwgt[u];
+    if (l === 0) in0 += g.vertexWeight[u]; else if (l === 1) in1 += g.vertexWeight[u];
   }
-  heaps[0].push(v, g.vwgt[v] - in1);
-  heaps[1].push(v, g.vwgt[v] - in0);
+  heaps[0].push(v, g.vertexWeight[v] - in1);
+  heaps[1].push(v, g.vertexWeight[v] - in0);
 }
 
 /** Runs up to `passes` separator-refinement passes in place. */
@@ -121,9 +121,9 @@ function separatorPass(g: WGraph, st: SeparatorState, maxPart: number, w: FmWork
   heaps[1].clear();
   for (let i = log.length - 2; i >= bestLen; i -= 2) {
     const v = log[i];
-    st.weight[label[v]] -= g.vwgt[v];
+    st.weight[label[v]] -= g.vertexWeight[v];
     label[v] = log[i + 1];
-    st.weight[label[v]] += g.vwgt[v];
+    st.weight[label[v]] += g.vertexWeight[v];
   }
   for (let i = 0; i < log.length; i += 2) moved[log[i]] = 0;
 }
@@ -135,7 +135,7 @@ function pickTarget(g: WGraph, st: SeparatorState, maxPart: number, heaps: FmWor
   for (let t = 0; t < 2; t++) {
     if (heaps[t].size === 0) continue;
     const v = heaps[t].top();
-    if (st.weight[t] + g.vwgt[v] > maxPart && st.weight[t] >= st.weight[1 - t]) continue;
+    if (st.weight[t] + g.vertexWeight[v] > maxPart && st.weight[t] >= st.weight[1 - t]) continue;
     const key = heaps[t].topKey();
     if (key > bestKey || (key === bestKey && st.weight[t] < st.weight[best])) { best = t; bestKey = key; }
   }
@@ -144,7 +144,7 @@ function pickTarget(g: WGraph, st: SeparatorState, maxPart: number, heaps: FmWor
 
 /** Moves v from the separator into part t; neighbours in the other part join the separator. */
 function moveInto(g: WGraph, st: SeparatorState, v: number, t: number, w: FmWork, log: number[]): void {
-  const { xadj, adj, vwgt } = g;
+  const { offsets, neighbours, vertexWeight } = g;
   const { heaps, moved } = w;
   const label = st.label;
   const other = 1 - t;
@@ -153,22 +153,22 @@ function moveInto(g: WGraph, st: SeparatorState, v: number, t: number, w: FmWork
   moved[v] = 1;
   log.push(v, 2);
   label[v] = t;
-  st.weight[2] -= vwgt[v];
-  st.weight[t] += vwgt[v];
-  for (let p = xadj[v], pe = xadj[v + 1]; p < pe; p++) {
-    const u = adj[p];
+  st.weight[2] -= vertexWeight[v];
+  st.weight[t] += vertexWeight[v];
+  for (let p = offsets[v], pe = offsets[v + 1]; p < pe; p++) {
+    const u = neighbours[p];
     if (label[u] === 2) {
-      if (heaps[other].has(u)) heaps[other].update(u, heaps[other].key[u] - vwgt[v]);
+      if (heaps[other].has(u)) heaps[other].update(u, heaps[other].key[u] - vertexWeight[v]);
       continue;
     }
     if (label[u] !== other) continue;
     log.push(u, other);
     label[u] = 2;
-    st.weight[other] -= vwgt[u];
-    st.weight[2] += vwgt[u];
-    for (let q = xadj[u], qe = xadj[u + 1]; q < qe; q++) {
-      const x = adj[q];
-      if (label[x] === 2 && heaps[t].has(x)) heaps[t].update(x, heaps[t].key[x] + vwgt[u]);
+    st.weight[other] -= vertexWeight[u];
+    st.weight[2] += vertexWeight[u];
+    for (let q = offsets[u], qe = offsets[u + 1]; q < qe; q++) {
+      const x = neighbours[q];
+      if (label[x] === 2 && heaps[t].has(x)) heaps[t].update(x, heaps[t].key[x] + vertexWeight[u]);
     }
     if (!moved[u]) {
       pushBoth(g, label, u, heaps);

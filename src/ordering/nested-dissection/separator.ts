@@ -38,7 +38,7 @@ export function vertexSeparatorFromCut(g: WGraph, label: Int8Array, w: CoverWork
   let w1 = 0;
   for (let i = 0; i < count; i++) {
     const v = boundary[i];
-    if (label[v] === 0) w0 += g.vwgt[v]; else w1 += g.vwgt[v];
+    if (label[v] === 0) w0 += g.vertexWeight[v]; else w1 += g.vertexWeight[v];
   }
   const list = boundary.subarray(0, count);
   matchBoundary(g, label, list, w);
@@ -48,7 +48,7 @@ export function vertexSeparatorFromCut(g: WGraph, label: Int8Array, w: CoverWork
   let wc = 0;
   for (let i = 0; i < count; i++) {
     const v = list[i];
-    if ((label[v] === 0) !== (stamp[v] === REACHED)) wc += g.vwgt[v];
+    if ((label[v] === 0) !== (stamp[v] === REACHED)) wc += g.vertexWeight[v];
   }
   const useCover = wc < w0 && wc < w1;
   const side = w0 <= w1 ? 0 : 1;
@@ -68,8 +68,8 @@ function scanBoundary(g: WGraph, label: Int8Array, out: Int32Array): number {
   let count = 0;
   for (let v = 0; v < g.n; v++) {
     const s = label[v];
-    for (let p = g.xadj[v], pe = g.xadj[v + 1]; p < pe; p++) {
-      if (label[g.adj[p]] !== s) { out[count++] = v; break; }
+    for (let p = g.offsets[v], pe = g.offsets[v + 1]; p < pe; p++) {
+      if (label[g.neighbours[p]] !== s) { out[count++] = v; break; }
     }
   }
   return count;
@@ -88,8 +88,8 @@ function matchBoundary(g: WGraph, label: Int8Array, list: Int32Array, w: CoverWo
   for (let i = 0; i < list.length; i++) {
     const v = list[i];
     if (label[v] !== 0) continue;
-    for (let p = g.xadj[v]; p < g.xadj[v + 1]; p++) {
-      const u = g.adj[p];
+    for (let p = g.offsets[v]; p < g.offsets[v + 1]; p++) {
+      const u = g.neighbours[p];
       if (label[u] === 1 && mate[u] === -1) { mate[u] = v; mate[v] = u; break; }
     }
   }
@@ -106,8 +106,8 @@ function augment(g: WGraph, label: Int8Array, root: number, w: CoverWork): boole
   queue[tail++] = root;
   for (let head = 0; head < tail; head++) {
     const v = queue[head];
-    for (let p = g.xadj[v]; p < g.xadj[v + 1]; p++) {
-      const u = g.adj[p];
+    for (let p = g.offsets[v]; p < g.offsets[v + 1]; p++) {
+      const u = g.neighbours[p];
       if (label[u] !== 1 || stamp[u] === root) continue;
       stamp[u] = root;
       parent[u] = v;
@@ -139,8 +139,8 @@ function alternatingReach(g: WGraph, label: Int8Array, list: Int32Array, w: Cove
   }
   for (let head = 0; head < tail; head++) {
     const v = queue[head];
-    for (let p = g.xadj[v]; p < g.xadj[v + 1]; p++) {
-      const u = g.adj[p];
+    for (let p = g.offsets[v]; p < g.offsets[v + 1]; p++) {
+      const u = g.neighbours[p];
       if (label[u] !== 1 || reached[u] === REACHED) continue;
       reached[u] = REACHED;
       const m = mate[u];

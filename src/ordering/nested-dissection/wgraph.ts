@@ -7,23 +7,20 @@
  */
 import type { Graph } from "../../graph/types.js";
 
-/** Vertex v's neighbours are adj[xadj[v] .. xadj[v+1]) with edge weights ewgt at the same positions. */
-export interface WGraph {
-  readonly n: number;
-  readonly xadj: Int32Array;
-  readonly adj: Int32Array;
-  readonly ewgt: Int32Array;
-  readonly vwgt: Int32Array;
+/** Vertex v's neighbours are neighbours[offsets[v] .. offsets[v+1]) with edge weights edgeWeight at the same positions. */
+export interface WGraph extends Graph {
+  readonly edgeWeight: Int32Array;
+  readonly vertexWeight: Int32Array;
   readonly totalWeight: number;
 }
 
 /** Wraps an unweighted graph; `vertexWeights` defaults to all ones. */
 export function weightedGraph(g: Graph, vertexWeights?: Int32Array): WGraph {
-  const vwgt = vertexWeights ?? new Int32Array(g.n).fill(1);
+  const vertexWeight = vertexWeights ?? new Int32Array(g.n).fill(1);
   let total = 0;
-  for (let v = 0; v < g.n; v++) total += vwgt[v];
-  const ewgt = new Int32Array(g.neighbours.length).fill(1);
-  return { n: g.n, xadj: g.offsets, adj: g.neighbours, ewgt, vwgt, totalWeight: total };
+  for (let v = 0; v < g.n; v++) total += vertexWeight[v];
+  const edgeWeight = new Int32Array(g.neighbours.length).fill(1);
+  return { n: g.n, offsets: g.offsets, neighbours: g.neighbours, edgeWeight, vertexWeight, totalWeight: total };
 }
 
 /**
@@ -32,7 +29,7 @@ export function weightedGraph(g: Graph, vertexWeights?: Int32Array): WGraph {
  * length-g.n workspace that must hold -1 everywhere; it is restored before returning.
  */
 export function inducedSubgraph(g: WGraph, vertices: Int32Array, localOf: Int32Array): WGraph {
-  const { xadj: gx, adj: ga, ewgt: ge, vwgt: gv } = g;
+  const { offsets: gx, neighbours: ga, edgeWeight: ge, vertexWeight: gv } = g;
   const m = vertices.length;
   let bound = 0;
   for (let i = 0; i < m; i++) {
@@ -40,26 +37,26 @@ export function inducedSubgraph(g: WGraph, vertices: Int32Array, localOf: Int32A
     localOf[v] = i;
     bound += gx[v + 1] - gx[v];
   }
-  const xadj = new Int32Array(m + 1);
-  const adj = new Int32Array(bound);
-  const ewgt = new Int32Array(bound);
-  const vwgt = new Int32Array(m);
+  const offsets = new Int32Array(m + 1);
+  const neighbours = new Int32Array(bound);
+  const edgeWeight = new Int32Array(bound);
+  const vertexWeight = new Int32Array(m);
   let k = 0;
   let total = 0;
   for (let i = 0; i < m; i++) {
     const v = vertices[i];
-    vwgt[i] = gv[v];
+    vertexWeight[i] = gv[v];
     total += gv[v];
     for (let p = gx[v], pe = gx[v + 1]; p < pe; p++) {
       const u = localOf[ga[p]];
-      if (u >= 0) { adj[k] = u; ewgt[k++] = ge[p]; }
+      if (u >= 0) { neighbours[k] = u; edgeWeight[k++] = ge[p]; }
     }
-    xadj[i + 1] = k;
+    offsets[i + 1] = k;
   }
   for (let i = 0; i < m; i++) localOf[vertices[i]] = -1;
   // edges leaving the piece were counted in the bound: trim (a copy only when much was cut off)
   const trim = (a: Int32Array): Int32Array => (k === bound ? a : 2 * k >= bound ? a.subarray(0, k) : a.slice(0, k));
-  return { n: m, xadj, adj: trim(adj), ewgt: trim(ewgt), vwgt, totalWeight: total };
+  return { n: m, offsets, neighbours: trim(neighbours), edgeWeight: trim(edgeWeight), vertexWeight, totalWeight: total };
 }
 
 /**
@@ -81,8 +78,8 @@ export function components(g: WGraph, label: Int8Array | null, which: number): {
     seen[s] = 1;
     while (head < tail) {
       const v = order[head++];
-      for (let p = g.xadj[v]; p < g.xadj[v + 1]; p++) {
-        const u = g.adj[p];
+      for (let p = g.offsets[v]; p < g.offsets[v + 1]; p++) {
+        const u = g.neighbours[p];
         if (!seen[u] && (label === null || label[u] === which)) { seen[u] = 1; order[tail++] = u; }
       }
     }
