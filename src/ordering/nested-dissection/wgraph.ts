@@ -7,8 +7,15 @@
  */
 import type { Graph } from "../../graph/types.js";
 
-/** Vertex v's neighbours are neighbours[offsets[v] .. offsets[v+1]) with edge weights edgeWeight at the same positions. */
-export interface WGraph extends Graph {
+/**
+ * Vertex v's neighbours are neighbours[offsets[v] .. offsets[v+1]) with edge
+ * weights edgeWeight at the same positions. Unlike Graph, lists of coarse
+ * graphs are not sorted, so a WGraph is not a Graph.
+ */
+export interface WGraph {
+  readonly n: number;
+  readonly offsets: Int32Array;
+  readonly neighbours: Int32Array;
   readonly edgeWeight: Int32Array;
   readonly vertexWeight: Int32Array;
   readonly totalWeight: number;
