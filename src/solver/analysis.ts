@@ -11,17 +11,8 @@ import type { AnalysisStats } from "./stats.js";
 import { decodeAnalysis, encodeAnalysis } from "./serialize.js";
 import { factorWithAnalysis, type Factorization, type FactorizeOptions } from "./factor.js";
 
-/** The fields an Analysis is made of (what serialization stores). */
-export interface AnalysisParts {
-  readonly permutation: Int32Array;
-  readonly inversePermutation: Int32Array;
-  readonly orderingPermutation: Int32Array;
-  readonly separatorTree: SeparatorTree | undefined;
-  readonly eliminationTree: Int32Array;
-  readonly columnCounts: Int32Array;
-  readonly structure: SupernodalStructure;
-  readonly stats: AnalysisStats;
-}
+/** The fields an Analysis is made of (what serialization stores); `n` follows from the structure. */
+export type AnalysisParts = Omit<Analysis, "n" | "factor" | "toBytes">;
 
 /** Ordering and symbolic factorization of one sparsity pattern; immutable and reusable. */
 export class Analysis {
@@ -33,36 +24,29 @@ export class Analysis {
    * of the same elimination tree, with each supernode contiguous) of
    * `orderingPermutation`, so the fill is exactly the ordering's.
    */
-  readonly permutation: Int32Array;
+  declare readonly permutation: Int32Array;
   /** Inverse of `permutation`: original index → position. */
-  readonly inversePermutation: Int32Array;
+  declare readonly inversePermutation: Int32Array;
   /** The permutation exactly as the ordering produced it (new → original). */
-  readonly orderingPermutation: Int32Array;
+  declare readonly orderingPermutation: Int32Array;
   /**
    * The separator tree of a nested-dissection ordering, in the numbering of
    * `orderingPermutation`; undefined for other orderings.
    */
-  readonly separatorTree: SeparatorTree | undefined;
+  declare readonly separatorTree: SeparatorTree | undefined;
   /** Elimination tree in the numbering of `permutation` (-1 for roots). */
-  readonly eliminationTree: Int32Array;
+  declare readonly eliminationTree: Int32Array;
   /** Entries of each column of L (diagonal included), numbering of `permutation`. */
-  readonly columnCounts: Int32Array;
+  declare readonly columnCounts: Int32Array;
   /** Supernodes of L and their row structures, numbering of `permutation`. */
-  readonly structure: SupernodalStructure;
+  declare readonly structure: SupernodalStructure;
   /** Sizes, predicted work and memory, and timings. */
-  readonly stats: AnalysisStats;
+  declare readonly stats: AnalysisStats;
 
   /** @internal Use {@link analyze} or {@link Analysis.fromBytes}. */
   constructor(parts: AnalysisParts) {
+    Object.assign(this, parts);
     this.n = parts.structure.n;
-    this.permutation = parts.permutation;
-    this.inversePermutation = parts.inversePermutation;
-    this.orderingPermutation = parts.orderingPermutation;
-    this.separatorTree = parts.separatorTree;
-    this.eliminationTree = parts.eliminationTree;
-    this.columnCounts = parts.columnCounts;
-    this.structure = parts.structure;
-    this.stats = parts.stats;
     Object.freeze(this);
   }
 

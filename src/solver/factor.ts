@@ -7,6 +7,7 @@ import { getKernels } from "../kernels/index.js";
 import type { SparseMatrix } from "../matrix/sparse.js";
 import { factorize, type Factorization } from "../numeric/index.js";
 import type { FactorMethod } from "../numeric/types.js";
+import type { Analysis } from "./analysis.js";
 import type { Progress } from "./analyze.js";
 
 export type { Factorization } from "../numeric/index.js";
@@ -30,12 +31,7 @@ export interface FactorizeOptions {
 }
 
 /** The analysis fields the numeric stage reads. */
-interface AnalysedPattern {
-  readonly structure: import("../symbolic/types.js").SupernodalStructure;
-  readonly permutation: Int32Array;
-  readonly inversePermutation: Int32Array;
-  readonly stats: { readonly flops: number };
-}
+type AnalysedPattern = Pick<Analysis, "structure" | "permutation" | "inversePermutation" | "stats">;
 
 /** Numeric factorization of A with the structure of `analysis`. */
 export function factorWithAnalysis(analysis: AnalysedPattern, A: SparseMatrix, options: FactorizeOptions): Factorization {
