@@ -3,6 +3,7 @@
  * images as data: URLs), built as a string by pure functions so it renders
  * the same in Node and in a browser.
  */
+import { invertPermutation } from "../symbolic/index.js";
 import { binCount, binFactor, binSymmetric, densityPixels } from "./density.js";
 import { DENSITY_STOPS, FACTOR_STOPS, palette } from "./colour.js";
 import { pngDataUrl } from "./png.js";
@@ -60,7 +61,7 @@ export function renderReport(r: ReportInput): string {
   clear[0] = 0; // empty cells transparent, so separator bands show through
   const img = (pixels: Uint8Array, pal: Uint8Array) => pngDataUrl(size, size, pixels, pal, clear);
   const aUrl = img(densityPixels(binSymmetric(r.n, r.lowerColPtr, r.lowerRowIdx, null, size)), blue);
-  const inverse = shown?.permutation ? invert(shown.permutation) : null;
+  const inverse = shown?.permutation ? invertPermutation(shown.permutation) : null;
   const panels = [matrixPanel({ title: "A as given", caption: `${fmt(r.nnzA)} nonzeros in the file's numbering.`, n: r.n, imageUrl: aUrl, px: PX })];
   if (shown && inverse) {
     const pUrl = img(densityPixels(binSymmetric(r.n, r.lowerColPtr, r.lowerRowIdx, inverse, size)), blue);
@@ -105,12 +106,6 @@ ${extra}
 <footer>${r.footer ? esc(r.footer) : "Made by septum."}</footer>
 </main></body></html>
 `;
-}
-
-function invert(p: Int32Array): Int32Array {
-  const inv = new Int32Array(p.length);
-  for (let k = 0; k < p.length; k++) inv[p[k]] = k;
-  return inv;
 }
 
 /** position in the structure's numbering → position in the drawn numbering */
