@@ -101,50 +101,52 @@ function matchBoundary(g: WGraph, label: Int8Array, list: Int32Array, w: CoverWo
 
 /** Breadth-first search for an augmenting path from free left vertex `root`; flips it if found. */
 function augment(g: WGraph, label: Int8Array, root: number, w: CoverWork): boolean {
-  const { mate, stamp, parent, queue } = w;
-  let tail = 0;
-  queue[tail++] = root;
-  for (let head = 0; head < tail; head++) {
-    const v = queue[head];
-    for (let p = g.offsets[v]; p < g.offsets[v + 1]; p++) {
-      const u = g.neighbours[p];
-      if (label[u] !== 1 || stamp[u] === root) continue;
-      stamp[u] = root;
-      parent[u] = v;
-      const m = mate[u];
-      if (m === -1) {
-        let r = u;
-        for (;;) {
-          const l = parent[r];
-          const next = mate[l];
-          mate[r] = l;
-          mate[l] = r;
-          if (l === root) return true;
-          r = next;
-        }
-      }
-      queue[tail++] = m;
-    }
+  const { mate, parent } = w;
+  w.queue[0] = root;
+  let r = alternatingSearch(g, label, w, 1, root);
+  if (r === -1) return false;
+  for (;;) {
+    const l = parent[r];
+    const next = mate[l];
+    mate[r] = l;
+    mate[l] = r;
+    if (l === root) return true;
+    r = next;
   }
-  return false;
 }
 
 /** Z: vertices reachable from free left vertices by non-matching (left→right) then matching (right→left) edges. */
 function alternatingReach(g: WGraph, label: Int8Array, list: Int32Array, w: CoverWork): void {
-  const { mate, stamp: reached, queue } = w;
+  const { mate, stamp, queue } = w;
   let tail = 0;
   for (let i = 0; i < list.length; i++) {
     const v = list[i];
-    if (label[v] === 0 && mate[v] === -1) { reached[v] = REACHED; queue[tail++] = v; }
+    if (label[v] === 0 && mate[v] === -1) { stamp[v] = REACHED; queue[tail++] = v; }
   }
+  // the matching is maximum, so no free right vertex is met (the search runs to the end)
+  alternatingSearch(g, label, w, tail, REACHED);
+}
+
+/**
+ * Breadth-first search along alternating paths from the left vertices
+ * queue[0..tail): each right neighbour not yet stamped `mark` gets the stamp and
+ * its BFS parent, and its mate (stamped too) joins the queue. Stops at the first
+ * free right vertex, which it returns (-1 when none is met).
+ */
+function alternatingSearch(g: WGraph, label: Int8Array, w: CoverWork, tail: number, mark: number): number {
+  const { mate, stamp, parent, queue } = w;
   for (let head = 0; head < tail; head++) {
     const v = queue[head];
     for (let p = g.offsets[v]; p < g.offsets[v + 1]; p++) {
       const u = g.neighbours[p];
-      if (label[u] !== 1 || reached[u] === REACHED) continue;
-      reached[u] = REACHED;
+      if (label[u] !== 1 || stamp[u] === mark) continue;
+      stamp[u] = mark;
+      parent[u] = v;
       const m = mate[u];
-      if (m !== -1 && reached[m] !== REACHED) { reached[m] = REACHED; queue[tail++] = m; }
+      if (m === -1) return u;
+      stamp[m] = mark;
+      queue[tail++] = m;
     }
   }
+  return -1;
 }
