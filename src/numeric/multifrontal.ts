@@ -21,6 +21,7 @@
 import type { DenseKernels } from "../kernels/types.js";
 import type { SupernodalStructure } from "../symbolic/types.js";
 import type { FactorMethod } from "./types.js";
+import { contributionSize } from "./workspace.js";
 
 /** Everything one numeric pass needs; arrays are workspaces owned by the caller. */
 export interface FrontalPass {
@@ -60,12 +61,12 @@ export function multifrontal(p: FrontalPass): PivotFailure | null {
     const s = order[k];
     // The children's blocks are the topmost ones, the first child's lowest.
     const base = childPtr[s] < childPtr[s + 1] ? p.cbOffset[children[childPtr[s]]] : top;
+    const size = contributionSize(st, s);
     // Typed arrays drop out-of-range writes silently: guard the predicted bound.
-    if (top + cbDoubles(st, s) > p.scratch) throw new Error(`internal: contribution stack exceeds its prediction at supernode ${s}`);
+    if (top + size > p.scratch) throw new Error(`internal: contribution stack exceeds its prediction at supernode ${s}`);
     const fail = factorFront(p, s, top);
     if (fail) return fail;
     // Slide s's block down over its children's (stack pop + push).
-    const size = cbDoubles(st, s);
     if (base !== top && size > 0) slideLower(p.kernels.view(), base, top, Math.sqrt(size));
     p.cbOffset[s] = base;
     top = base + size;
@@ -81,11 +82,6 @@ export function multifrontal(p: FrontalPass): PivotFailure | null {
  */
 function slideLower(S: Float64Array, to: number, from: number, b: number): void {
   for (let j = 0; j < b; j++) S.copyWithin(to + j * b + j, from + j * b + j, from + (j + 1) * b);
-}
-
-function cbDoubles(st: SupernodalStructure, s: number): number {
-  const b = st.rowPtr[s + 1] - st.rowPtr[s] - (st.superStart[s + 1] - st.superStart[s]);
-  return b * b;
 }
 
 /** Assemble children into supernode s and factor its front; the contribution block goes at `cb`. */
