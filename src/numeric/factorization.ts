@@ -18,7 +18,7 @@ import {
   DEFAULT_PIVOT_TOLERANCE, type FactorMethod, type FactorOptions, type FactorStats, type Inertia,
   type NumericInput, type SolveInfo, type SolveOptions,
 } from "./types.js";
-import { predictWorkspace, stackSchedule, type StackSchedule, type WorkspacePrediction } from "./workspace.js";
+import { stackSchedule, workspaceOf, type StackSchedule, type WorkspacePrediction } from "./workspace.js";
 
 /** Options that may change from one refactor to the next. */
 export interface RefactorOptions {
@@ -62,7 +62,7 @@ export class Factorization {
     this.kernels = options.kernels ?? jsKernels();
     this.pivotTolerance = tol;
     this.schedule = stackSchedule(input.structure);
-    this.workspace = predictWorkspace(input.structure, method);
+    this.workspace = workspaceOf(input.structure, method, this.schedule);
     this.cumulativeFlops = flopsAlongOrder(input, this.schedule.order);
     this.solveTmp = new Float64Array(largestBelow(input.structure));
   }

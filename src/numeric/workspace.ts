@@ -84,9 +84,14 @@ export function stackSchedule(st: SupernodalStructure): StackSchedule {
 
 /** Predict the store the factorization will reserve, before allocating it. */
 export function predictWorkspace(structure: SupernodalStructure, method: FactorMethod = "cholesky"): WorkspacePrediction {
+  return workspaceOf(structure, method, stackSchedule(structure));
+}
+
+/** The store for a schedule already computed (the factorization keeps its own). */
+export function workspaceOf(structure: SupernodalStructure, method: FactorMethod, schedule: StackSchedule): WorkspacePrediction {
   const ns = structure.supernodeCount;
   const factorDoubles = structure.factorPtr[ns];
-  const stackDoubles = stackSchedule(structure).peak;
+  const stackDoubles = schedule.peak;
   let scratchDoubles = 0;
   if (method === "ldlt") {
     for (let s = 0; s < ns; s++) {
