@@ -71,12 +71,6 @@ function uncoarsenBisection(g: WGraph, levels: Level[], start: Bisection, o: Bis
   return b;
 }
 
-/** Multilevel edge bisection of g, refined at every level. */
-export function multilevelBisection(g: WGraph, rng: Rng, o: BisectOptions, work: FmWork): Bisection {
-  const levels = coarsen(g, rng, o.coarsestSize, work.arenas);
-  return uncoarsenBisection(g, levels, coarsestBisection(g, levels, rng, o, work), o, work);
-}
-
 /** Refines a given 2-way labelling of g (for example a coordinate cut) with FM at one level. */
 export function refineGiven(g: WGraph, label: Int8Array, o: BisectOptions, work: FmWork): Bisection {
   const b = evaluate(g, label, work);
