@@ -5,13 +5,13 @@
  * verifies the discretization on a manufactured solution, and writes the
  * report and a temperature picture.
  */
-import { SparseMatrix } from "../matrix/sparse.js";
+import type { SparseMatrix } from "../matrix/sparse.js";
 import { symmetricMultiply } from "../matrix/symmetric.js";
 import { analyze } from "../solver/analyze.js";
 import { batteryHeat, batteryPlate, BATTERY_PLATE } from "../fem/battery.js";
 import { convergenceStudy } from "../fem/manufactured.js";
 import { meshPlate } from "../fem/mesh.js";
-import { assembleP1, heatBalance, expandSolution, type P1Problem, type Triplets } from "../fem/p1.js";
+import { assembleP1, heatBalance, expandSolution, lowerMatrix, unknownCoordinates, type P1Problem, type Triplets } from "../fem/p1.js";
 import { fieldSvg } from "../report/field.js";
 import { renderReport } from "../report/page.js";
 import { ORDERINGS, numberOption, type Parsed } from "./options.js";
@@ -22,18 +22,6 @@ import type { Analysed } from "./analyze.js";
 import { compareTable } from "./analyze.js";
 import { num, sci, secs, table } from "./format.js";
 import type { CliIO } from "./io.js";
-
-/** Lower triangle of an assembled (symmetric, both-triangle) triplet matrix as a SparseMatrix. */
-export function lowerMatrix(t: Triplets): SparseMatrix {
-  let m = 0;
-  for (let e = 0; e < t.rows.length; e++) if (t.rows[e] >= t.cols[e]) m++;
-  const rows = new Int32Array(m), cols = new Int32Array(m), values = new Float64Array(m);
-  for (let e = 0, k = 0; e < t.rows.length; e++) {
-    if (t.rows[e] < t.cols[e]) continue;
-    rows[k] = t.rows[e]; cols[k] = t.cols[e]; values[k++] = t.values[e];
-  }
-  return SparseMatrix.fromTriplets(t.n, t.n, rows, cols, values);
-}
 
 /** Solve an assembled system with nested dissection (used by the refinement study). */
 export function directSolve(t: Triplets, b: Float64Array): Float64Array {
@@ -62,8 +50,7 @@ function plateSystem(h: number) {
   const system = assembleP1(mesh, problem);
   const A = lowerMatrix(system.matrix);
   // node coordinates of the unknowns: nested dissection uses them to seed its cuts
-  const coordinates = new Float64Array(2 * A.ncols);
-  for (let i = 0; i < A.ncols; i++) coordinates.set(mesh.coords.subarray(2 * system.nodeOf[i], 2 * system.nodeOf[i] + 2), 2 * i);
+  const coordinates = unknownCoordinates(mesh, system);
   return { mesh, problem, system, A, coordinates };
 }
 

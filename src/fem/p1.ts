@@ -7,6 +7,7 @@
  * The method is the textbook one (e.g. Johnson 1987, "Numerical Solution of
  * Partial Differential Equations by the Finite Element Method", ch. 1–4).
  */
+import { SparseMatrix } from "../matrix/sparse.js";
 import type { TriangleMesh } from "./mesh.js";
 
 /** Coordinate-format (triplet) symmetric matrix holding both triangles; duplicates are to be summed. */
@@ -102,6 +103,28 @@ function elementMatrices(xy: Float64Array, v: Int32Array, p: P1Problem, ke: Floa
   fe[0] = (area / 6) * (f01 + f20);
   fe[1] = (area / 6) * (f01 + f12);
   fe[2] = (area / 6) * (f12 + f20);
+}
+
+/** Lower triangle (diagonal included) of an assembled triplet matrix as a SparseMatrix, duplicates summed. */
+export function lowerMatrix(t: Triplets): SparseMatrix {
+  let m = 0;
+  for (let e = 0; e < t.rows.length; e++) if (t.rows[e] >= t.cols[e]) m++;
+  const rows = new Int32Array(m), cols = new Int32Array(m), values = new Float64Array(m);
+  for (let e = 0, k = 0; e < t.rows.length; e++) {
+    if (t.rows[e] < t.cols[e]) continue;
+    rows[k] = t.rows[e]; cols[k] = t.cols[e]; values[k++] = t.values[e];
+  }
+  return SparseMatrix.fromTriplets(t.n, t.n, rows, cols, values);
+}
+
+/** Node coordinates (x, y) of each unknown, in unknown order. */
+export function unknownCoordinates(mesh: TriangleMesh, system: P1System): Float64Array {
+  const n = system.nodeOf.length, coordinates = new Float64Array(2 * n);
+  for (let i = 0; i < n; i++) {
+    coordinates[2 * i] = mesh.coords[2 * system.nodeOf[i]];
+    coordinates[2 * i + 1] = mesh.coords[2 * system.nodeOf[i] + 1];
+  }
+  return coordinates;
 }
 
 /** Nodal values of u: the solution on free nodes, g on Dirichlet nodes. */

@@ -7,9 +7,9 @@
  */
 import { batteryHeat, batteryPlate, BATTERY_PLATE } from "../fem/battery.js";
 import { meshPlate } from "../fem/mesh.js";
-import { assembleP1 } from "../fem/p1.js";
+import { assembleP1, lowerMatrix, unknownCoordinates } from "../fem/p1.js";
 import { InputError } from "../errors.js";
-import { checkSize, LowerTriplets, type ModelProblem } from "./grids.js";
+import { checkSize, type ModelProblem } from "./grids.js";
 
 /** The plate meshed with k elements across its width (k ≥ 60 so the smallest channel is resolved). */
 export function plateMesh2d(k: number, contrast = 1): ModelProblem {
@@ -18,18 +18,9 @@ export function plateMesh2d(k: number, contrast = 1): ModelProblem {
   const mesh = meshPlate(batteryPlate(BATTERY_PLATE.width / k));
   const kappa = contrast === 1 ? 1 : (x: number, y: number) => (batteryHeat(x, y) > 0 ? contrast : 1);
   const sys = assembleP1(mesh, { kappa, source: () => 0, dirichlet: (v) => (mesh.holeOf[v] >= 0 ? 0 : undefined) });
-  const t = new LowerTriplets();
-  const { rows, cols, values } = sys.matrix;
-  for (let e = 0; e < rows.length; e++) if (rows[e] >= cols[e]) t.add(rows[e], cols[e], values[e]);
-  const n = sys.nodeOf.length;
-  const coordinates = new Float64Array(2 * n);
-  for (let i = 0; i < n; i++) {
-    coordinates[2 * i] = mesh.coords[2 * sys.nodeOf[i]];
-    coordinates[2 * i + 1] = mesh.coords[2 * sys.nodeOf[i] + 1];
-  }
   return {
     name: `mesh2d-${k}${contrast === 1 ? "" : `-contrast${contrast}`}`,
     description: `P1 Laplacian on an unstructured triangle mesh of a plate with ${BATTERY_PLATE.channels.length} circular holes (${mesh.triangles.length / 3} triangles)${contrast === 1 ? "" : `, conductivity contrast ${contrast}`}`,
-    matrix: t.toMatrix(n), coordinates, dim: 2,
+    matrix: lowerMatrix(sys.matrix), coordinates: unknownCoordinates(mesh, sys), dim: 2,
   };
 }
