@@ -151,21 +151,8 @@ export class SparseMatrix {
 
   /** Aᵀ as a new matrix. */
   transpose(): SparseMatrix {
-    const { nrows, ncols, colPtr, rowIdx, values } = this;
-    const nz = this.nnz;
-    const tPtr = new Int32Array(nrows + 1);
-    for (let p = 0; p < nz; p++) tPtr[rowIdx[p] + 1]++;
-    for (let i = 0; i < nrows; i++) tPtr[i + 1] += tPtr[i];
-    const next = tPtr.slice(0, nrows);
-    const tIdx = new Int32Array(nz), tVal = new Float64Array(nz);
-    for (let j = 0; j < ncols; j++) {
-      for (let p = colPtr[j]; p < colPtr[j + 1]; p++) {
-        const q = next[rowIdx[p]]++;
-        tIdx[q] = j;
-        tVal[q] = values[p];
-      }
-    }
-    return SparseMatrix.trusted(ncols, nrows, tPtr, tIdx, tVal);
+    const t = transposeArrays(this, true);
+    return SparseMatrix.trusted(this.ncols, this.nrows, t.colPtr, t.rowIdx, t.values!);
   }
 
   /** y = A·x (as stored, no symmetry implied). */
@@ -190,6 +177,31 @@ export class SparseMatrix {
     }
     return out;
   }
+}
+
+/**
+ * Column pointers and row indices of Aᵀ (rows stay sorted: a counting sort by
+ * row over the columns in order), with the values when `withValues`.
+ * @internal
+ */
+export function transposeArrays(
+  A: SparseMatrix, withValues: boolean,
+): { colPtr: Int32Array; rowIdx: Int32Array; values?: Float64Array } {
+  const { nrows, ncols, colPtr, rowIdx, values } = A;
+  const nz = A.nnz;
+  const tPtr = new Int32Array(nrows + 1);
+  for (let p = 0; p < nz; p++) tPtr[rowIdx[p] + 1]++;
+  for (let i = 0; i < nrows; i++) tPtr[i + 1] += tPtr[i];
+  const next = tPtr.slice(0, nrows);
+  const tIdx = new Int32Array(nz), tVal = withValues ? new Float64Array(nz) : undefined;
+  for (let j = 0; j < ncols; j++) {
+    for (let p = colPtr[j]; p < colPtr[j + 1]; p++) {
+      const q = next[rowIdx[p]]++;
+      tIdx[q] = j;
+      if (tVal) tVal[q] = values[p];
+    }
+  }
+  return { colPtr: tPtr, rowIdx: tIdx, values: tVal };
 }
 
 function checkDimension(name: string, v: number): void {
