@@ -12,30 +12,16 @@
 // is shared, so only back-to-back figures compare). Then the speed-up over
 // ml-matrix's dense Cholesky at n = 2500, and our own dense POTRF beside it.
 import { CholeskyDecomposition, Matrix } from "ml-matrix";
-import { SparseMatrix, analyze, jsKernels, getKernels } from "../dist/index.js";
+import { analyze, jsKernels, getKernels } from "../dist/index.js";
+import { grid2d, grid3d, median } from "./common.mjs";
 
 const RUNS = Number(process.env.RUNS ?? 3);
 const KERNELS = process.env.KERNELS ?? "js";
 const cases = process.argv.slice(2).length ? process.argv.slice(2) : ["kernel", "2d", "3d", "dense"];
 
-const median = (v) => { const s = [...v].sort((a, b) => a - b); const h = s.length >> 1; return s.length % 2 ? s[h] : (s[h - 1] + s[h]) / 2; };
 const now = () => performance.now() / 1000;
 const fmt = (x, d = 3) => Number(x).toFixed(d);
 const mib = (b) => `${fmt(b / 2 ** 20, 1)} MiB`;
-
-/** Lower triangle of the 5-point (2-D) or 7-point (3-D) Dirichlet Laplacian on a k^dim grid. */
-function gridLaplacian(k, dim) {
-  const n = k ** dim, rows = [], cols = [], vals = [];
-  const strides = dim === 2 ? [1, k] : [1, k, k * k];
-  for (let v = 0; v < n; v++) {
-    rows.push(v); cols.push(v); vals.push(2 * dim);
-    for (let d = 0; d < dim; d++) {
-      const coord = Math.floor(v / strides[d]) % k;
-      if (coord > 0) { rows.push(v); cols.push(v - strides[d]); vals.push(-1); }
-    }
-  }
-  return SparseMatrix.fromTriplets(n, n, Int32Array.from(rows), Int32Array.from(cols), Float64Array.from(vals));
-}
 
 /** GF/s of the kernel set's lower GEMM (SYRK) C −= A·Aᵀ, 256×256×256, median of `reps` after 3 warm-ups. */
 function kernelRate(reps = 9) {
@@ -81,7 +67,7 @@ function benchSparse(name, A, { runs = RUNS, warmups = 0, ordering = "nested-dis
 }
 
 function benchDense() {
-  const A = gridLaplacian(50, 2), n = A.ncols;
+  const A = grid2d(50), n = A.ncols;
   const sparse = benchSparse("2-D 50² (n = 2500)", A, { runs: Math.max(RUNS, 9), warmups: 10 });
   const M = new Matrix(n, n);
   for (let j = 0; j < n; j++) for (let p = A.colPtr[j]; p < A.colPtr[j + 1]; p++) {
@@ -124,7 +110,7 @@ if (cases.includes("kernel") || cases.includes("2d") || cases.includes("3d")) {
 }
 for (const c of ["2d", "3d"]) {
   if (!cases.includes(c)) continue;
-  const A = c === "2d" ? gridLaplacian(500, 2) : gridLaplacian(40, 3);
+  const A = c === "2d" ? grid2d(500) : grid3d(40);
   const r = benchSparse(c === "2d" ? "2-D 500²" : "3-D 40³", A);
   rates.push(kernelRate());
   report(r);
