@@ -9,7 +9,7 @@ import { AbortedError, InputError } from "../errors.js";
 import { compressGraph, expandPermutation, type CompressedGraph } from "../graph/compress.js";
 import type { Graph } from "../graph/types.js";
 import { validateCoordinates, type Coordinates } from "./coordinates.js";
-import { minimumDegree, minimumDegreeTrusted } from "./minimum-degree.js";
+import { defaultDenseThreshold, minimumDegree, minimumDegreeTrusted } from "./minimum-degree.js";
 import { nestedDissection } from "./nested-dissection/index.js";
 import { reverseCuthillMcKee } from "./rcm.js";
 import type { OrderingResult, SeparatorTree } from "./types.js";
@@ -68,11 +68,6 @@ export function computeOrdering(g: Graph, options: OrderingOptions = {}): Orderi
   return result;
 }
 
-/** Leaves set rows denser than this aside, as minimum degree does by default (keeps star-like leaves linear). */
-function denseThreshold(n: number): number {
-  return Math.max(16, 10 * Math.sqrt(n));
-}
-
 function identity(n: number): Int32Array {
   const p = new Int32Array(n);
   for (let i = 0; i < n; i++) p[i] = i;
@@ -86,7 +81,8 @@ function dissect(g: Graph, options: OrderingOptions): OrderingResult {
   if (mode !== undefined && mode !== "refine" && mode !== "plain" && mode !== "ignore") {
     throw new InputError(`coordinateMode must be "refine", "plain" or "ignore", got ${String(mode)}`);
   }
-  const orderLeaf = (leaf: Graph): Int32Array => minimumDegreeTrusted(leaf, denseThreshold(leaf.n), true);
+  // leaves set dense rows aside as minimum degree does by default (keeps star-like leaves linear)
+  const orderLeaf = (leaf: Graph): Int32Array => minimumDegreeTrusted(leaf, defaultDenseThreshold(leaf.n), true);
   const common = {
     orderLeaf, seed: options.seed, signal: options.signal, onProgress: options.onProgress, coordinateMode: options.coordinateMode,
   };

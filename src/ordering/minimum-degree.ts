@@ -24,6 +24,11 @@ export interface MinimumDegreeOptions {
   aggressive?: boolean;
 }
 
+/** The default dense-row threshold for a graph of n vertices: max(16, 10·sqrt(n)). @internal */
+export function defaultDenseThreshold(n: number): number {
+  return Math.max(16, 10 * Math.sqrt(n));
+}
+
 /**
  * Fill-reducing ordering by approximate minimum degree.
  *
@@ -34,7 +39,7 @@ export interface MinimumDegreeOptions {
 export function minimumDegree(graph: Graph, options: MinimumDegreeOptions = {}): Int32Array {
   checkGraph(graph, "minimumDegree");
   const n = graph.n;
-  const threshold = options.denseThreshold ?? Math.max(16, 10 * Math.sqrt(n));
+  const threshold = options.denseThreshold ?? defaultDenseThreshold(n);
   if (typeof threshold !== "number" || Number.isNaN(threshold) || threshold < 0) {
     throw new InputError(`minimumDegree: denseThreshold must be a non-negative number, got ${String(threshold)}`);
   }
