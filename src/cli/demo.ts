@@ -16,6 +16,7 @@ import { fieldSvg } from "../report/field.js";
 import { renderReport } from "../report/page.js";
 import { ORDERINGS, numberOption, type Parsed } from "./options.js";
 import { progressLine, type ProgressLine } from "./progress.js";
+import { progressCallback } from "./pipeline.js";
 import { writeText } from "./files.js";
 import { reportInput } from "./report.js";
 import type { Analysed } from "./analyze.js";
@@ -61,9 +62,9 @@ function solveEveryWay(io: CliIO, A: SparseMatrix, b: Float64Array, coordinates:
   for (const ordering of ORDERINGS) {
     const label = ordering.split("-")[0];
     const ta = io.now();
-    const analysis = analyze(A, { ordering, coordinates, onProgress: (q) => line.update(`${label} ${q.phase}`, q.fraction) });
+    const analysis = analyze(A, { ordering, coordinates, onProgress: progressCallback(line, `${label} `) });
     const tb = io.now();
-    const F = analysis.factor(A, { onProgress: (q) => line.update(`${label} factor`, q.fraction) });
+    const F = analysis.factor(A, { onProgress: progressCallback(line, `${label} `) });
     const tc = io.now();
     const xo = F.solve(b);
     checkResidual(A, xo, b, ordering);

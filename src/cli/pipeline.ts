@@ -12,11 +12,9 @@ import { readMatrixFile } from "./files.js";
 import { FileError, type CliIO } from "./io.js";
 import type { ProgressLine } from "./progress.js";
 
-const PHASE_LABEL: Record<Progress["phase"], string> = { ordering: "ordering", symbolic: "symbolic", factor: "factor" };
-
 /** onProgress callback drawing the phase on the progress line. */
 export function progressCallback(line: ProgressLine, prefix = ""): (p: Progress) => void {
-  return (p) => line.update(prefix + PHASE_LABEL[p.phase], p.fraction);
+  return (p) => line.update(prefix + p.phase, p.fraction);
 }
 
 /** Read A and reduce it to its lower triangle; a general file whose triangles disagree is an error naming the entry. */
