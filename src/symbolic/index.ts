@@ -43,15 +43,26 @@ export function invertPermutation(p: Int32Array): Int32Array {
   return inv;
 }
 
-/** Column counts of L for the given ordering, without building supernodes. */
-export function countFill(g: Graph, permutation: Int32Array): { nnzL: number; flops: number; columnCounts: Int32Array } {
+/** Elimination tree, a postorder of it and the column counts, for a valid permutation. */
+function treeAndCounts(g: Graph, permutation: Int32Array) {
   const inverse = invertPermutation(permutation);
   const parent = eliminationTree(g, permutation, inverse);
   const order = postorder(parent);
   const counts = columnCounts(g, permutation, inverse, parent, order);
+  return { parent, order, counts };
+}
+
+/** Σ c_j and Σ c_j² of column counts. */
+function fillTotals(counts: Int32Array): { nnzL: number; flops: number } {
   let nnzL = 0, flops = 0;
   for (let j = 0; j < counts.length; j++) { nnzL += counts[j]; flops += counts[j] * counts[j]; }
-  return { nnzL, flops, columnCounts: counts };
+  return { nnzL, flops };
+}
+
+/** Column counts of L for the given ordering, without building supernodes. */
+export function countFill(g: Graph, permutation: Int32Array): { nnzL: number; flops: number; columnCounts: Int32Array } {
+  const { counts } = treeAndCounts(g, permutation);
+  return { ...fillTotals(counts), columnCounts: counts };
 }
 
 /** Run the whole symbolic phase for a valid permutation (new → original). */
@@ -59,10 +70,7 @@ export function symbolicFactorization(
   g: Graph, permutation: Int32Array, amalgamation: AmalgamationOptions | false = {},
 ): SymbolicResult {
   const n = g.n;
-  const inverse0 = invertPermutation(permutation);
-  const parent0 = eliminationTree(g, permutation, inverse0);
-  const order = postorder(parent0);
-  const counts0 = columnCounts(g, permutation, inverse0, parent0, order);
+  const { parent: parent0, order, counts: counts0 } = treeAndCounts(g, permutation);
   // Relabel into postorder.
   const pos = invertPermutation(order);
   const parent1 = new Int32Array(n), counts1 = new Int32Array(n);
@@ -84,7 +92,5 @@ export function symbolicFactorization(
   }
   const inverse = invertPermutation(perm);
   const structure = buildStructure(g, perm, inverse, part.start, part.parent, part.rows);
-  let nnzL = 0, flops = 0;
-  for (let j = 0; j < n; j++) { nnzL += counts[j]; flops += counts[j] * counts[j]; }
-  return { permutation: perm, inverse, parent, columnCounts: counts, structure, nnzL, flops };
+  return { permutation: perm, inverse, parent, columnCounts: counts, structure, ...fillTotals(counts) };
 }
