@@ -16,13 +16,9 @@ import { factorize } from "../src/numeric/index.js";
 import { stackSchedule, predictWorkspace } from "../src/numeric/workspace.js";
 import {
   EPS, analyse, asFull, asUpper, dense, denseBackwardError, gramPlusShift, permuteDense, randomPermutation,
-  randomSpd, readFactor, rng, sparseSpd,
+  randomSpd, randomVector, readFactor, sparseSpd,
 } from "./numeric-support.js";
-
-function randomVector(n: number, seed: number): Float64Array {
-  const r = rng(seed);
-  return Float64Array.from({ length: n }, () => r() * 2 - 1);
-}
+import { laplacian1d } from "./helpers/patterns.js";
 
 describe("Cholesky solve on random sparse SPD matrices (property)", () => {
   it("backward error and relative residual stay below 10·n·ε (dense residual via ml-matrix)", () => {
@@ -83,16 +79,6 @@ describe("factor and solution against ml-matrix on small cases", () => {
     }
   });
 });
-
-/** tridiag(−1, 2, −1) of order n, lower triangle. */
-function laplacian1d(n: number): SparseMatrix {
-  const r: number[] = [], c: number[] = [], v: number[] = [];
-  for (let i = 0; i < n; i++) {
-    r.push(i); c.push(i); v.push(2);
-    if (i + 1 < n) { r.push(i + 1); c.push(i); v.push(-1); }
-  }
-  return SparseMatrix.fromTriplets(n, n, r, c, v);
-}
 
 describe("closed forms", () => {
   it("1-D Laplacian: L(i,i) = sqrt((i+1)/i), L(i+1,i) = −sqrt(i/(i+1)) (1-based), log det = log(n+1)", () => {

@@ -16,7 +16,7 @@ import { grid2d } from "../src/generate/grids.js";
 import { plateMesh2d } from "../src/generate/plate.js";
 import { SparseMatrix } from "../src/matrix/sparse.js";
 import { factorize } from "../src/numeric/index.js";
-import { EPS, analyse, randomPermutation, rng } from "./numeric-support.js";
+import { EPS, analyse, randomPermutation, randomVector, rng } from "./numeric-support.js";
 
 /** η = ‖b − A·x‖∞ / (‖A‖∞‖x‖∞ + ‖b‖∞) for a lower-stored symmetric A, computed entry by entry. */
 function backwardError(A: SparseMatrix, x: Float64Array, b: Float64Array): number {
@@ -32,11 +32,6 @@ function backwardError(A: SparseMatrix, x: Float64Array, b: Float64Array): numbe
     bn = Math.max(bn, Math.abs(b[i])); an = Math.max(an, rowAbs[i]);
   }
   return r / (an * xn + bn);
-}
-
-function rhs(n: number, seed: number): Float64Array {
-  const r = rng(seed);
-  return Float64Array.from({ length: n }, () => r() * 2 - 1);
 }
 
 /** Block diagonal of lower-stored matrices (disconnected pieces). */
@@ -63,7 +58,7 @@ describe("matrices users bring", () => {
     it(`${name}: Cholesky and L·D·Lᵀ solves are backward stable`, () => {
       const A = make(), n = A.ncols;
       const input = analyse(A, randomPermutation(n, n));
-      const b = rhs(n, 1);
+      const b = randomVector(n, 1);
       for (const method of ["cholesky", "ldlt"] as const) {
         const F = factorize(input, A, { method });
         expect(F.inertia()).toEqual({ positive: n, negative: 0, zero: 0 });
@@ -87,7 +82,7 @@ describe("matrices users bring", () => {
     const A = SparseMatrix.fromTriplets(n1 + n2, n1 + n2, rows, cols, vals), n = n1 + n2;
     const F = factorize(analyse(A, randomPermutation(n, 2)), A, { method: "ldlt" });
     expect(F.inertia()).toEqual({ positive: n1, negative: n2, zero: 0 });
-    const b = rhs(n, 3);
+    const b = randomVector(n, 3);
     const info = F.solveWithInfo(b, { refine: true });
     expect(backwardError(A, info.x, b)).toBeLessThanOrEqual(10 * n * EPS);
   });

@@ -69,6 +69,12 @@ export function rng(seed: number): () => number {
   };
 }
 
+/** A vector of n values uniform in [−1, 1) from rng(seed). */
+export function randomVector(n: number, seed: number): Float64Array {
+  const r = rng(seed);
+  return Float64Array.from({ length: n }, () => r() * 2 - 1);
+}
+
 export function randomSpd(n: number, density: number, seed: number, scale = 1): SparseMatrix {
   const r = rng(seed), rows: number[] = [], cols: number[] = [], vals: number[] = [];
   const rowSum = new Float64Array(n);
