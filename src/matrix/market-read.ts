@@ -11,7 +11,7 @@
 
 import { InputError, MatrixMarketError } from "../errors.js";
 import { SparseMatrix } from "./sparse.js";
-import { Cursor, decodeText, scanInteger, scanReal } from "./market-scan.js";
+import { Cursor, decodeText, lineEnd, scanInteger, scanReal } from "./market-scan.js";
 
 /** The value field of a Matrix Market file that septum reads. */
 export type MarketField = "real" | "integer" | "pattern";
@@ -90,8 +90,7 @@ function skipByteOrderMark(c: Cursor): void {
 /** Read and check line 1: `%%MatrixMarket matrix <format> <field> <symmetry>`. */
 function readBanner(c: Cursor): Banner {
   const b = c.bytes;
-  let end = c.pos;
-  while (end < b.length && b[end] !== 10) end++;
+  const end = lineEnd(b, c.pos);
   // A banner is short; never decode more of a first line than this.
   const words = decodeText(b.subarray(c.pos, Math.min(end, c.pos + 4096))).trim().split(/[ \t\r]+/);
   if (words[0]!.toLowerCase() !== BANNER) {
@@ -163,7 +162,7 @@ function wrongFieldCount(c: Cursor, found: number, expected: number, what: strin
   let total = found;
   while (!c.atLineEnd()) {
     total++;
-    while (c.pos < c.bytes.length && c.bytes[c.pos] !== 32 && c.bytes[c.pos] !== 9 && c.bytes[c.pos] !== 13 && c.bytes[c.pos] !== 10) c.pos++;
+    c.skipToken();
   }
   c.fail(`expected ${expected} field${expected === 1 ? "" : "s"} (${what}), found ${total}`);
 }

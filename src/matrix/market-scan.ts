@@ -76,8 +76,7 @@ export class Cursor {
   /** Move past the rest of the current line (including its newline). */
   nextLine(): void {
     const b = this.bytes;
-    let p = this.pos;
-    while (p < b.length && b[p] !== NL) p++;
+    let p = lineEnd(b, this.pos);
     if (p < b.length) {
       p++;
       this.line++;
@@ -102,6 +101,11 @@ export class Cursor {
     }
   }
 
+  /** Move past the token at the cursor (up to the next blank, newline or end of text). */
+  skipToken(): void {
+    while (!endsToken(this.bytes, this.pos)) this.pos++;
+  }
+
   /** The token starting at the cursor (up to the next blank), for messages. */
   token(): string {
     return tokenAt(this.bytes, this.pos);
@@ -120,7 +124,7 @@ export class Cursor {
 }
 
 /** Index of the newline ending the line that holds `p` (or the text length). */
-function lineEnd(b: Uint8Array, p: number): number {
+export function lineEnd(b: Uint8Array, p: number): number {
   while (p < b.length && b[p] !== NL) p++;
   return p;
 }
