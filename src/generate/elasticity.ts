@@ -61,8 +61,8 @@ export function elasticity3d(k: number, E = 1, nu = 0.3): ModelProblem {
   const n = 3 * k * m * m;
   const coordinates = new Float64Array(3 * n);
   for (let z = 0; z < m; z++) for (let y = 0; y < m; y++) for (let x = 1; x < m; x++) {
-    const f = free(x, y, z);
-    for (let c = 0; c < 3; c++) coordinates.set([x / k, y / k, z / k], 3 * (3 * f + c));
+    const f = free(x, y, z), cx = x / k, cy = y / k, cz = z / k;
+    for (let q = 9 * f; q < 9 * f + 9; q += 3) { coordinates[q] = cx; coordinates[q + 1] = cy; coordinates[q + 2] = cz; }
   }
   const t = new LowerTriplets();
   const dof = new Int32Array(24);

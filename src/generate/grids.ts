@@ -92,7 +92,7 @@ export function grid3d(k: number): ModelProblem {
     for (let y = 0; y < k; y++) {
       for (let x = 0; x < k; x++) {
         const v = (z * k + y) * k + x;
-        coordinates.set([x, y, z], 3 * v);
+        coordinates[3 * v] = x; coordinates[3 * v + 1] = y; coordinates[3 * v + 2] = z;
         t.add(v, v, 6);
         if (x > 0) t.add(v, v - 1, -1);
         if (y > 0) t.add(v, v - k, -1);
