@@ -46,18 +46,13 @@ interface BfsState {
 
 /** George–Liu search: returns a vertex of (near) maximal eccentricity in v's component. */
 function peripheralStart(g: Graph, v: number, queue: Int32Array, level: Int32Array, st: BfsState): number {
-  const { offsets } = g;
   let start = lowestDegree(g, v, queue, level, st);
   let depth = -1;
   for (let round = 0; round < MAX_START_SEARCHES; round++) {
     const lastLevelFirst = levelSearch(g, start, queue, level, st);
     if (st.depth <= depth) break;
     depth = st.depth;
-    let best = queue[lastLevelFirst];
-    for (let k = lastLevelFirst + 1; k < st.size; k++) {
-      const u = queue[k];
-      if (offsets[u + 1] - offsets[u] < offsets[best + 1] - offsets[best]) best = u;
-    }
+    const best = leastDegree(g, queue, lastLevelFirst, st.size);
     if (best === start) break;
     start = best;
   }
@@ -66,10 +61,15 @@ function peripheralStart(g: Graph, v: number, queue: Int32Array, level: Int32Arr
 
 /** One BFS from v to find the component; returns its vertex of least degree. */
 function lowestDegree(g: Graph, v: number, queue: Int32Array, level: Int32Array, st: BfsState): number {
-  const { offsets } = g;
   levelSearch(g, v, queue, level, st);
-  let best = v;
-  for (let k = 1; k < st.size; k++) {
+  return leastDegree(g, queue, 0, st.size);
+}
+
+/** The first vertex of least degree among queue[from..to). */
+function leastDegree(g: Graph, queue: Int32Array, from: number, to: number): number {
+  const { offsets } = g;
+  let best = queue[from];
+  for (let k = from + 1; k < to; k++) {
     const u = queue[k];
     if (offsets[u + 1] - offsets[u] < offsets[best + 1] - offsets[best]) best = u;
   }
