@@ -8,7 +8,7 @@
  */
 import { InputError, PatternMismatchError } from "../errors.js";
 import type { SparseMatrix } from "../matrix/sparse.js";
-import { requireSquare, storageForm, type StorageForm } from "../matrix/symmetric.js";
+import { storageForm, type StorageForm } from "../matrix/symmetric.js";
 import type { SupernodalStructure } from "../symbolic/types.js";
 
 /** The precomputed map from A's stored entries to factor offsets. */
@@ -21,11 +21,12 @@ export interface ScatterMap {
   readonly target: Float64Array;
 }
 
-/** Build the map, throwing PatternMismatchError for an entry outside the analysed structure. */
+/**
+ * Build the map for a square A of order st.n (the caller checks both), throwing
+ * PatternMismatchError for an entry outside the analysed structure.
+ */
 export function buildScatterMap(st: SupernodalStructure, inverse: Int32Array, A: SparseMatrix): ScatterMap {
-  requireSquare(A);
   const n = st.n;
-  if (A.ncols !== n) throw new PatternMismatchError(`matrix has order ${A.ncols}, the analysis was made for order ${n}`);
   const form = storageForm(A);
   const { colPtr, rowIdx } = A, nnz = colPtr[n];
   // Bucket the placed entries by their new column (counting sort).
