@@ -77,8 +77,8 @@ function rowEdge(
 }
 
 /** Rows per cache block of A (MC) and depth per block (KC): an MC×KC block of A stays in L2 while all columns of C pass (Goto & van de Geijn 2008). */
-export const GEMM_ROW_BLOCK = 128;
-export const GEMM_DEPTH_BLOCK = 256;
+const GEMM_ROW_BLOCK = 128;
+const GEMM_DEPTH_BLOCK = 256;
 
 /**
  * C := C − A·Bᵀ, A m×k at a, B n×k at b, C m×n at c (column-major, offsets

@@ -9,7 +9,7 @@
 import { trsm } from "./trsm.js";
 
 /** Block width of the blocked L·D·Lᵀ. */
-export const LDLT_BLOCK = 32;
+const LDLT_BLOCK = 32;
 
 /** Unblocked right-looking L·D·Lᵀ of the n×n lower triangle at a. */
 function ldltUnblocked(S: Float64Array, n: number, a: number, lda: number, tiny: number): number {

@@ -9,7 +9,7 @@ import { gemm } from "./gemm.js";
 import { trsm } from "./trsm.js";
 
 /** Block width of the panel; measured on a 256×256 block (bench/factor.mjs reports the kernel rate). */
-export const POTRF_BLOCK = 32;
+const POTRF_BLOCK = 32;
 
 /** Unblocked right-looking Cholesky of the n×n lower triangle at a. */
 function potrfUnblocked(S: Float64Array, n: number, a: number, lda: number): number {

@@ -33,7 +33,7 @@ function solveGroup(
 }
 
 /** Column block width: inside a block, left-looking groups of four; after it, one right-looking gemm update. */
-export const TRSM_BLOCK = 32;
+const TRSM_BLOCK = 32;
 
 /**
  * B := B·L⁻ᵀ, L the n×n lower triangle at a, B m×n at b. With `unit` the
