@@ -57,15 +57,20 @@ function coarsestBisection(g: WGraph, levels: Level[], rng: Rng, o: BisectOption
   return initialBisection(coarsest, rng, triesFor(g, o), partBound(coarsest, o.imbalance), work);
 }
 
+/** The labelling of `fine` that gives each vertex the label of its coarse vertex in `level`. */
+function project(fine: WGraph, level: Level, coarseLabel: Int8Array): Int8Array {
+  const { coarseOf } = level;
+  const label = new Int8Array(fine.n);
+  for (let v = 0; v < fine.n; v++) label[v] = coarseLabel[coarseOf[v]];
+  return label;
+}
+
 /** Projects an edge bisection of the coarsest graph back to g with FM refinement at every level. */
 function uncoarsenBisection(g: WGraph, levels: Level[], start: Bisection, o: BisectOptions, work: FmWork): Bisection {
   let b = start;
   for (let i = levels.length - 1; i >= 0; i--) {
     const fine = i > 0 ? levels[i - 1].graph : g;
-    const coarseOf = levels[i].coarseOf;
-    const label = new Int8Array(fine.n);
-    for (let v = 0; v < fine.n; v++) label[v] = b.label[coarseOf[v]];
-    b = evaluate(fine, label, work);
+    b = evaluate(fine, project(fine, levels[i], b.label), work);
     refineBisection(fine, b, partBound(fine, o.imbalance), o.passes, work);
   }
   return b;
@@ -123,9 +128,7 @@ function separatorByLevels(g: WGraph, levels: Level[], start: Bisection, o: Bise
   let label = separate(coarsest, start, o, work, true);
   for (let i = levels.length - 1; i >= 0; i--) {
     const fine = i > 0 ? levels[i - 1].graph : g;
-    const coarseOf = levels[i].coarseOf;
-    const fineLabel = new Int8Array(fine.n);
-    for (let v = 0; v < fine.n; v++) fineLabel[v] = label[coarseOf[v]];
+    const fineLabel = project(fine, levels[i], label);
     refineSeparator(fine, separatorState(fine, fineLabel), partBound(fine, o.separatorImbalance), o.passes, work);
     label = fineLabel;
   }
