@@ -6,16 +6,7 @@ import { geometricLaplacian } from "../src/generate/graphs.js";
 import { plateMesh2d } from "../src/generate/plate.js";
 import { saddle2d } from "../src/generate/saddle.js";
 import { symmetricMultiply } from "../src/matrix/symmetric.js";
-import type { SparseMatrix } from "../src/matrix/sparse.js";
-
-function dense(L: SparseMatrix): Matrix {
-  const M = Matrix.zeros(L.nrows, L.ncols);
-  for (let j = 0; j < L.ncols; j++) for (let p = L.colPtr[j]; p < L.colPtr[j + 1]; p++) {
-    M.set(L.rowIdx[p], j, L.values[p]);
-    M.set(j, L.rowIdx[p], L.values[p]);
-  }
-  return M;
-}
+import { dense } from "./numeric-support.js";
 
 const ones = (n: number) => new Float64Array(n).fill(1);
 
