@@ -3,7 +3,7 @@ import type { SparseMatrix } from "../matrix/sparse.js";
 import type { OrderingName } from "../solver/analyze.js";
 import type { Analysis } from "../solver/analysis.js";
 import type { CliIO } from "./io.js";
-import { numberOption, orderingOption, ORDERINGS, positionals, type Parsed } from "./options.js";
+import { numberOption, orderingOption, ORDERINGS, positionals, shortOrderingName, type Parsed } from "./options.js";
 import { analyzeWith, loadSymmetric } from "./pipeline.js";
 import { progressLine, type ProgressLine } from "./progress.js";
 import { num, secs, table } from "./format.js";
@@ -19,13 +19,9 @@ export interface Analysed {
 export function analyzeAll(io: CliIO, A: SparseMatrix, orderings: readonly OrderingName[], seed: number, line: ProgressLine): Analysed[] {
   return orderings.map((ordering) => {
     const t = io.now();
-    const analysis = analyzeWith(A, ordering, seed, line, orderings.length > 1 ? `${short(ordering)}: ` : "");
+    const analysis = analyzeWith(A, ordering, seed, line, orderings.length > 1 ? `${shortOrderingName(ordering)}: ` : "");
     return { ordering, analysis, seconds: io.now() - t };
   });
-}
-
-function short(o: OrderingName): string {
-  return o === "nested-dissection" ? "nd" : o === "minimum-degree" ? "md" : o === "reverse-cuthill-mckee" ? "rcm" : o;
 }
 
 function record(a: Analysed) {

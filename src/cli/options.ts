@@ -9,6 +9,11 @@ import { UsageError } from "./io.js";
 export const ORDERINGS: readonly OrderingName[] = ["nested-dissection", "minimum-degree", "reverse-cuthill-mckee", "natural"];
 const ALIASES: Record<string, OrderingName> = { nd: "nested-dissection", md: "minimum-degree", rcm: "reverse-cuthill-mckee" };
 
+/** The short alias of an ordering (nd, md, rcm), or its full name when it has none. */
+export function shortOrderingName(o: OrderingName): string {
+  return Object.keys(ALIASES).find((k) => ALIASES[k] === o) ?? o;
+}
+
 type Spec = Record<string, { type: "string" | "boolean"; short?: string }>;
 
 const COMMON: Spec = {
