@@ -11,10 +11,9 @@ import type { SolveInfo } from "./types.js";
 const EPS = Number.EPSILON;
 const MAX_AUTO_STEPS = 10;
 
-/** Residual r = b − A·x for every column and the largest backward error. */
-function residual(A: SparseMatrix, normA: number, b: Float64Array, x: Float64Array, r: Float64Array): number {
+/** Residual r = b − A·x for every column and the largest backward error; `ax` is an n-long workspace. */
+function residual(A: SparseMatrix, normA: number, b: Float64Array, x: Float64Array, r: Float64Array, ax: Float64Array): number {
   const n = A.ncols, k = n === 0 ? 0 : b.length / n;
-  const ax = new Float64Array(n);
   let worst = 0;
   for (let c = 0; c < k; c++) {
     const o = c * n;
@@ -43,16 +42,15 @@ export function refineSolve(
   solveInPlace: (v: Float64Array) => Float64Array, steps: number | boolean,
 ): SolveInfo {
   const x = solveInPlace(b.slice());
-  const r = new Float64Array(b.length);
-  let eta = residual(A, normA, b, x, r);
+  const r = new Float64Array(b.length), ax = new Float64Array(A.ncols);
+  const trial = new Float64Array(b.length), r2 = new Float64Array(b.length);
+  let eta = residual(A, normA, b, x, r, ax);
   const max = steps === true ? MAX_AUTO_STEPS : steps === false ? 0 : Math.max(0, Math.floor(steps));
   let taken = 0;
   while (taken < max && eta > EPS) {
     const d = solveInPlace(r);
-    const trial = x.slice();
-    for (let i = 0; i < trial.length; i++) trial[i] += d[i];
-    const r2 = new Float64Array(b.length);
-    const eta2 = residual(A, normA, b, trial, r2);
+    for (let i = 0; i < trial.length; i++) trial[i] = x[i] + d[i];
+    const eta2 = residual(A, normA, b, trial, r2, ax);
     taken++;
     if (!(eta2 < eta)) break;
     const halved = eta2 <= 0.5 * eta;
