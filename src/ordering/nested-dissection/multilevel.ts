@@ -115,9 +115,8 @@ export function multilevelSeparator(g: WGraph, rng: Rng, o: BisectOptions, work:
 
 /** The labelling with the lighter separator; ties go to the better balance. */
 export function lighter(g: WGraph, a: Int8Array, b: Int8Array): Int8Array {
-  const wa = [0, 0, 0];
-  const wb = [0, 0, 0];
-  for (let v = 0; v < g.n; v++) { wa[a[v]] += g.vertexWeight[v]; wb[b[v]] += g.vertexWeight[v]; }
+  const wa = separatorState(g, a).weight;
+  const wb = separatorState(g, b).weight;
   if (wa[2] !== wb[2]) return wa[2] < wb[2] ? a : b;
   return Math.abs(wa[0] - wa[1]) <= Math.abs(wb[0] - wb[1]) ? a : b;
 }

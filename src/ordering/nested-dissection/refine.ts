@@ -89,8 +89,8 @@ function dropBoundary(w: FmWork, v: number): void {
   w.boundaryPos[v] = -1;
 }
 
-/** Weight by which the heavier part exceeds the bound (0 when balanced). */
-export function excess(b: Bisection, maxPart: number): number {
+/** Weight by which the heavier of parts 0 and 1 exceeds the bound (0 when balanced); for edge bisections and separator states alike. */
+export function excess(b: { readonly weight: readonly number[] }, maxPart: number): number {
   return Math.max(0, b.weight[0] - maxPart, b.weight[1] - maxPart);
 }
 

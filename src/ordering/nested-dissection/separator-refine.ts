@@ -8,7 +8,7 @@
  * separator weight. Moves run in order of gain under a balance bound, each
  * vertex is locked once moved, and the pass rolls back to its best state.
  */
-import type { FmWork } from "./refine.js";
+import { excess, type FmWork } from "./refine.js";
 import type { WGraph } from "./wgraph.js";
 
 /** Separator state: label[v] ∈ {0, 1, 2 (separator)} and the three weights. */
@@ -45,10 +45,10 @@ export function refineSeparator(g: WGraph, st: SeparatorState, maxPart: number, 
   let count = collectSeparator(g, st.label, w.separator[0]);
   for (let pass = 0; pass < passes; pass++) {
     const before = st.weight[2];
-    const beforeExcess = excessOf(st, maxPart);
+    const beforeExcess = excess(st, maxPart);
     separatorPass(g, st, maxPart, w, log, count);
     count = updateSeparator(st.label, w, log, count);
-    if (st.weight[2] >= before && excessOf(st, maxPart) >= beforeExcess) break;
+    if (st.weight[2] >= before && excess(st, maxPart) >= beforeExcess) break;
   }
 }
 
@@ -81,12 +81,8 @@ function updateSeparator(label: Int8Array, w: FmWork, log: number[], count: numb
   return c;
 }
 
-function excessOf(st: SeparatorState, maxPart: number): number {
-  return Math.max(0, st.weight[0] - maxPart, st.weight[1] - maxPart);
-}
-
 function better(st: SeparatorState, maxPart: number, bestEx: number, bestSep: number, bestImb: number): boolean {
-  const ex = excessOf(st, maxPart);
+  const ex = excess(st, maxPart);
   if (ex !== bestEx) return ex < bestEx;
   if (st.weight[2] !== bestSep) return st.weight[2] < bestSep;
   return Math.abs(st.weight[0] - st.weight[1]) < bestImb;
@@ -102,7 +98,7 @@ function separatorPass(g: WGraph, st: SeparatorState, maxPart: number, w: FmWork
   }
   log.length = 0;
   const limit = Math.max(15, Math.min(150, g.n >> 6));
-  let bestEx = excessOf(st, maxPart);
+  let bestEx = excess(st, maxPart);
   let bestSep = st.weight[2];
   let bestImb = Math.abs(st.weight[0] - st.weight[1]);
   let bestLen = 0;
@@ -113,7 +109,7 @@ function separatorPass(g: WGraph, st: SeparatorState, maxPart: number, w: FmWork
     const v = heaps[t].top();
     moveInto(g, st, v, t, w, log);
     if (better(st, maxPart, bestEx, bestSep, bestImb)) {
-      bestEx = excessOf(st, maxPart); bestSep = st.weight[2]; bestImb = Math.abs(st.weight[0] - st.weight[1]);
+      bestEx = excess(st, maxPart); bestSep = st.weight[2]; bestImb = Math.abs(st.weight[0] - st.weight[1]);
       bestLen = log.length; sinceBest = 0;
     } else sinceBest++;
   }
