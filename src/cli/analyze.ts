@@ -53,7 +53,7 @@ export function analyzeCommand(io: CliIO, p: Parsed): number {
   const ordering = orderingOption(p.values.ordering);
   const seed = numberOption("seed", p.values.seed, 1, 0, 2 ** 31 - 1, true);
   const line = progressLine(io, io.stderrIsTTY && !p.values.quiet);
-  const { lower: A } = loadSymmetric(io, path);
+  const A = loadSymmetric(io, path);
   const list = analyzeAll(io, A, p.values.compare ? ORDERINGS : [ordering], seed, line);
   line.done();
   if (p.values.json) {

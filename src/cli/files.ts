@@ -42,13 +42,13 @@ function readMarketFile(io: CliIO, path: string): ReturnType<typeof readMatrixMa
 }
 
 /** A square sparse matrix from a Matrix Market `coordinate` file. */
-export function readMatrixFile(io: CliIO, path: string): { matrix: SparseMatrix; symmetricFile: boolean } {
+export function readMatrixFile(io: CliIO, path: string): SparseMatrix {
   const contents = readMarketFile(io, path);
   if (contents.kind !== "sparse") throw new FileError(`${path}: is a dense 'array' file, expected a sparse 'coordinate' matrix`);
   const A = contents.matrix;
   if (A.nrows !== A.ncols) throw new FileError(`${path}: the matrix is ${A.nrows} × ${A.ncols}, expected a square matrix`);
   if (A.nrows === 0) throw new FileError(`${path}: the matrix is 0 × 0; there is nothing to solve`);
-  return { matrix: A, symmetricFile: contents.symmetric };
+  return A;
 }
 
 /** Right-hand sides (n × k, column-major) from an `array` or `coordinate` file. */

@@ -18,10 +18,10 @@ export function progressCallback(line: ProgressLine, prefix = ""): (p: Progress)
 }
 
 /** Read A and reduce it to its lower triangle; a general file whose triangles disagree is an error naming the entry. */
-export function loadSymmetric(io: CliIO, path: string): { lower: SparseMatrix; symmetricFile: boolean } {
-  const { matrix, symmetricFile } = readMatrixFile(io, path);
+export function loadSymmetric(io: CliIO, path: string): SparseMatrix {
+  const matrix = readMatrixFile(io, path);
   try {
-    return { lower: symmetricFile ? matrix : lowerTriangle(matrix), symmetricFile };
+    return lowerTriangle(matrix); // a symmetric file already holds the lower triangle and comes back as is
   } catch (e) {
     if (e instanceof NotSymmetricError) {
       const i = e.row + 1, j = e.column + 1;

@@ -41,7 +41,7 @@ export function reportCommand(io: CliIO, p: Parsed): number {
   const shown = orderingOption(p.values.ordering);
   const seed = numberOption("seed", p.values.seed, 1, 0, 2 ** 31 - 1, true);
   const line = progressLine(io, io.stderrIsTTY && !p.values.quiet);
-  const { lower: A } = loadSymmetric(io, path);
+  const A = loadSymmetric(io, path);
   const list = analyzeAll(io, A, ORDERINGS, seed, line);
   line.done();
   const html = renderReport(reportInput(`Sparsity report: ${path}`, `${path} — symmetric, n = ${A.ncols}`, A, list, shown));

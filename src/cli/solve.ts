@@ -17,7 +17,7 @@ export function solveCommand(io: CliIO, p: Parsed): number {
   const kernels = kernelsOption(p.values.kernels);
   const line = progressLine(io, io.stderrIsTTY && !p.values.quiet);
   const t0 = io.now();
-  const { lower: A } = loadSymmetric(io, path);
+  const A = loadSymmetric(io, path);
   const n = A.ncols;
   const rhs = p.values.rhs ? readRhsFile(io, String(p.values.rhs), n) : { values: symmetricMultiply(A, new Float64Array(n).fill(1)), columns: 1 };
   const t1 = io.now();
