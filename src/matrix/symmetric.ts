@@ -49,7 +49,7 @@ export function lowerTriangle(A: SparseMatrix): SparseMatrix {
   const form = storageForm(A);
   if (form === "lower") return A;
   if (form === "upper") return A.transpose();
-  checkSymmetric(A);
+  requireSymmetric(A);
   return keepLower(A);
 }
 
@@ -71,8 +71,12 @@ function keepLower(A: SparseMatrix): SparseMatrix {
   return SparseMatrix.trusted(n, n, ptr, idx, val);
 }
 
-/** Compare A with Aᵀ entry by entry (a missing entry counts as zero). */
-function checkSymmetric(A: SparseMatrix): void {
+/**
+ * Throw NotSymmetricError naming the first entry where A and Aᵀ disagree
+ * beyond SYMMETRY_TOLERANCE (a missing entry counts as zero). Meant for
+ * full storage; a one-triangle matrix stands for a symmetric one by definition.
+ */
+export function requireSymmetric(A: SparseMatrix): void {
   const T = A.transpose();
   const n = A.ncols;
   for (let j = 0; j < n; j++) {

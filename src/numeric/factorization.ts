@@ -9,7 +9,7 @@ import { AbortedError, InputError, NotPositiveDefiniteError, PatternMismatchErro
 import { jsKernels } from "../kernels/js/index.js";
 import type { DenseKernels } from "../kernels/types.js";
 import { SparseMatrix } from "../matrix/sparse.js";
-import { lowerTriangle, maxAbs, requireSquare, symmetricNormInf } from "../matrix/symmetric.js";
+import { maxAbs, requireSquare, requireSymmetric, symmetricNormInf } from "../matrix/symmetric.js";
 import { multifrontal, type PivotFailure } from "./multifrontal.js";
 import { buildScatterMap, samePattern, scatterValues, type ScatterMap } from "./scatter.js";
 import { refineSolve } from "./refine.js";
@@ -111,7 +111,7 @@ export class Factorization {
     else if (!samePattern(this.map, A)) {
       throw new PatternMismatchError("matrix pattern differs from the one this factorization was made for");
     }
-    if (this.map.form === "full") lowerTriangle(A); // throws NotSymmetricError naming the entry
+    if (this.map.form === "full") requireSymmetric(A);
     const w = this.workspace;
     const S = this.kernels.reserve(w.factorDoubles + w.stackDoubles + w.scratchDoubles);
     S.fill(0, 0, w.factorDoubles);
