@@ -5,7 +5,7 @@
  * holds half the weight; refine each try by FM and keep the best of several seeds.
  */
 import { MaxHeap } from "./heap.js";
-import { evaluate, refineBisection, type Bisection, type FmWork } from "./refine.js";
+import { evaluate, excess, refineBisection, type Bisection, type FmWork } from "./refine.js";
 import type { Rng } from "./rng.js";
 import type { WGraph } from "./wgraph.js";
 
@@ -66,7 +66,7 @@ export function initialBisection(g: WGraph, rng: Rng, tries: number, maxPart: nu
 }
 
 function better(a: Bisection, b: Bisection, maxPart: number): boolean {
-  const ea = Math.max(0, a.weight[0] - maxPart, a.weight[1] - maxPart);
-  const eb = Math.max(0, b.weight[0] - maxPart, b.weight[1] - maxPart);
+  const ea = excess(a, maxPart);
+  const eb = excess(b, maxPart);
   return ea < eb || (ea === eb && a.cut < b.cut);
 }
