@@ -25,7 +25,7 @@ import { num, sci, secs, table } from "./format.js";
 import type { CliIO } from "./io.js";
 
 /** Solve an assembled system with nested dissection (used by the refinement study). */
-export function directSolve(t: Triplets, b: Float64Array): Float64Array {
+function directSolve(t: Triplets, b: Float64Array): Float64Array {
   const A = lowerMatrix(t);
   return analyze(A, { ordering: "nested-dissection" }).factor(A).solve(b);
 }

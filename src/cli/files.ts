@@ -10,7 +10,7 @@ import type { SparseMatrix } from "../matrix/sparse.js";
 import { FileError, type CliIO } from "./io.js";
 
 /** Bytes of a file; FileError for a missing file, a directory or an empty file. */
-export function readBytes(io: CliIO, path: string): Uint8Array {
+function readBytes(io: CliIO, path: string): Uint8Array {
   const full = resolve(io.cwd, path);
   let size: number;
   try {

@@ -13,7 +13,7 @@ import { num } from "./format.js";
 const KINDS = ["grid2d", "grid3d", "elasticity3d", "mesh2d", "laplacian", "saddle2d"];
 
 /** Build the model problem named on the command line. */
-export function buildModel(kind: string, sizeText: string, p: Parsed): ModelProblem {
+function buildModel(kind: string, sizeText: string, p: Parsed): ModelProblem {
   const size = Number(sizeText);
   if (!/^\d+$/.test(sizeText.trim()) || !(size >= 1)) throw new UsageError(`generate ${kind}: the size must be a positive integer, got '${sizeText}'`);
   switch (kind) {

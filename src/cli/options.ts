@@ -22,7 +22,7 @@ const COMMON: Spec = {
   debug: { type: "boolean" },
 };
 
-export const SPECS: Record<string, Spec> = {
+const SPECS: Record<string, Spec> = {
   solve: { ...COMMON, rhs: { type: "string" }, output: { type: "string", short: "o" }, ordering: { type: "string" }, method: { type: "string" }, json: { type: "boolean" }, seed: { type: "string" }, kernels: { type: "string" } },
   analyze: { ...COMMON, ordering: { type: "string" }, json: { type: "boolean" }, compare: { type: "boolean" }, seed: { type: "string" } },
   report: { ...COMMON, output: { type: "string", short: "o" }, ordering: { type: "string" }, seed: { type: "string" } },

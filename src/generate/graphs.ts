@@ -9,7 +9,7 @@ import { checkSize, LowerTriplets, type ModelProblem } from "./grids.js";
 import { InputError } from "../errors.js";
 
 /** Mulberry32: a tiny seeded 32-bit generator (public-domain folklore, common practice). */
-export function seededRandom(seed: number): () => number {
+function seededRandom(seed: number): () => number {
   let s = seed >>> 0;
   return () => {
     s = (s + 0x6d2b79f5) >>> 0;
