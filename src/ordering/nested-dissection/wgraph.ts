@@ -68,7 +68,7 @@ export function inducedSubgraph(g: WGraph, vertices: Int32Array, localOf: Int32A
 
 /**
  * Connected components of the vertices whose `label` equals `which` (all
- * vertices when which < 0). Returns the vertices grouped by component and the
+ * vertices when `label` is null). Returns the vertices grouped by component and the
  * component offsets. Breadth-first, no recursion.
  */
 export function components(g: WGraph, label: Int8Array | null, which: number): { order: Int32Array; starts: number[] } {
