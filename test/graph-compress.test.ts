@@ -2,16 +2,7 @@ import fc from "fast-check";
 import { describe, expect, it } from "vitest";
 import { compressGraph, expandPermutation } from "../src/graph/compress.js";
 import type { Graph } from "../src/graph/types.js";
-
-/** Graph from an edge list (both directions, sorted, no loops or repeats). */
-function graphOf(n: number, edges: Array<[number, number]>): Graph {
-  const sets: Set<number>[] = Array.from({ length: n }, () => new Set<number>());
-  for (const [a, b] of edges) if (a !== b) { sets[a].add(b); sets[b].add(a); }
-  const offsets = new Int32Array(n + 1);
-  const out: number[] = [];
-  for (let v = 0; v < n; v++) { out.push(...[...sets[v]].sort((x, y) => x - y)); offsets[v + 1] = out.length; }
-  return { n, offsets, neighbours: Int32Array.from(out) };
-}
+import { graphFromEdges } from "./helpers/graphs.js";
 
 /** Closed neighbourhood N[v] as a sorted string key, computed directly (brute force). */
 function closedKey(g: Graph, v: number): string {
@@ -25,7 +16,7 @@ const randomGraph = fc.integer({ min: 0, max: 30 }).chain((n) =>
 const twinGraph = randomGraph.chain(([n, edges]) => fc.tuple(fc.constant(n), fc.constant(edges), fc.array(fc.nat(Math.max(0, n - 1)), { maxLength: n })));
 
 function withTwins(n: number, edges: Array<[number, number]>, copies: number[]): Graph {
-  const base = graphOf(n, edges);
+  const base = graphFromEdges(n, edges);
   const all: Array<[number, number]> = [...edges];
   let m = n;
   for (const v of n > 0 ? copies : []) {
@@ -33,7 +24,7 @@ function withTwins(n: number, edges: Array<[number, number]>, copies: number[]):
     all.push([t, v]);
     for (let p = base.offsets[v]; p < base.offsets[v + 1]; p++) all.push([t, base.neighbours[p]]);
   }
-  return graphOf(m, all.filter(([a, b]) => a < m && b < m));
+  return graphFromEdges(m, all.filter(([a, b]) => a < m && b < m));
 }
 
 describe("compressGraph", () => {
@@ -92,7 +83,7 @@ describe("compressGraph", () => {
         for (let a = 0; a < dof; a++) for (let b = 0; b < dof; b++) edges.push([dof * id(x, y, z) + a, dof * id(X, Y, Z) + b]);
       }
     }
-    const c = compressGraph(graphOf(nodes * dof, edges));
+    const c = compressGraph(graphFromEdges(nodes * dof, edges));
     expect(c.graph.n).toBe(nodes);
     expect(Array.from(c.weights).every((w) => w === dof)).toBe(true);
     for (let s = 0; s < nodes; s++) {
@@ -113,7 +104,7 @@ describe("compressGraph", () => {
 
   it("handles n = 0 and a star (no twins among leaves: they are not adjacent)", () => {
     expect(compressGraph({ n: 0, offsets: new Int32Array(1), neighbours: new Int32Array(0) }).graph.n).toBe(0);
-    const star = graphOf(50, Array.from({ length: 49 }, (_, i) => [0, i + 1] as [number, number]));
+    const star = graphFromEdges(50, Array.from({ length: 49 }, (_, i) => [0, i + 1] as [number, number]));
     expect(compressGraph(star).graph.n).toBe(50);
   });
 });

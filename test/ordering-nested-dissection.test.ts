@@ -1,7 +1,7 @@
 import fc from "fast-check";
 import { describe, expect, it } from "vitest";
 import type { Graph } from "../src/graph/types.js";
-import { graphOf } from "./helpers/graphs.js";
+import { expectPermutation, graphOf } from "./helpers/graphs.js";
 import { validateCoordinates } from "../src/ordering/coordinates.js";
 import { minimumDegree } from "../src/ordering/minimum-degree.js";
 import { Int32Arena } from "../src/ordering/nested-dissection/arena.js";
@@ -37,17 +37,6 @@ const clique = (n: number) => graphOf(n, (e) => { for (let i = 0; i < n; i++) fo
 // ---------- checks ----------
 const leafOrder = (g: Graph) => minimumDegree(g);
 const nd = (g: Graph, seed = 1, leafSize?: number) => nestedDissection(g, { orderLeaf: leafOrder, seed, leafSize });
-
-function expectPermutation(p: Int32Array, n: number): void {
-  expect(p.length).toBe(n);
-  const seen = new Uint8Array(n);
-  let bad = -1;
-  for (let k = 0; k < n && bad < 0; k++) {
-    const v = p[k];
-    if (v < 0 || v >= n || seen[v] === 1) bad = k; else seen[v] = 1;
-  }
-  expect(bad).toBe(-1);
-}
 
 /**
  * Separator tree: node ranges nest, children partition [first, separatorFirst)
