@@ -4,8 +4,7 @@ import type { Graph } from "../src/graph/types.js";
 import { expectPermutation, graphOf } from "./helpers/graphs.js";
 import { computeOrdering, DISSECTION_THRESHOLD } from "../src/ordering/index.js";
 import type { SeparatorTree } from "../src/ordering/types.js";
-import { columnCounts } from "../src/symbolic/column-counts.js";
-import { eliminationTree, postorder } from "../src/symbolic/etree.js";
+import { countFill } from "../src/symbolic/index.js";
 
 const grid2 = (k: number): Graph => graphOf(k * k, (e) => {
   for (let v = 0; v < k * k; v++) { if (v % k + 1 < k) e(v, v + 1); if (v + k < k * k) e(v, v + k); }
@@ -26,12 +25,7 @@ function elasticity(k: number, dof: number): Graph {
   });
 }
 function flops(g: Graph, perm: Int32Array): number {
-  const inv = new Int32Array(g.n);
-  for (let k = 0; k < g.n; k++) inv[perm[k]] = k;
-  const parent = eliminationTree(g, perm, inv);
-  let f = 0;
-  for (const c of columnCounts(g, perm, inv, parent, postorder(parent))) f += c * c;
-  return f;
+  return countFill(g, perm).flops;
 }
 function rangesPartition(t: SeparatorTree, n: number): boolean {
   let covered = 0;

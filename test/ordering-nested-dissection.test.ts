@@ -10,8 +10,7 @@ import { coverWork, SEPARATOR, vertexSeparatorFromCut } from "../src/ordering/ne
 import { evaluate, fmWork } from "../src/ordering/nested-dissection/refine.js";
 import { inducedSubgraph, weightedGraph } from "../src/ordering/nested-dissection/wgraph.js";
 import type { SeparatorTree } from "../src/ordering/types.js";
-import { columnCounts } from "../src/symbolic/column-counts.js";
-import { eliminationTree, postorder } from "../src/symbolic/etree.js";
+import { countFill } from "../src/symbolic/index.js";
 
 // ---------- graphs ----------
 const grid2 = (k: number, nine = false): Graph => graphOf(k * k, (e) => {
@@ -85,13 +84,8 @@ function expectTreeConsistent(g: Graph, perm: Int32Array, t: SeparatorTree): voi
 
 /** nnz(L) and flops Σ c_j² from the symbolic module's column counts. */
 function factorStats(g: Graph, perm: Int32Array): { nnz: number; flops: number } {
-  const inv = new Int32Array(g.n);
-  for (let k = 0; k < g.n; k++) inv[perm[k]] = k;
-  const parent = eliminationTree(g, perm, inv);
-  const c = columnCounts(g, perm, inv, parent, postorder(parent));
-  let nnz = 0, flops = 0;
-  for (const x of c) { nnz += x; flops += x * x; }
-  return { nnz, flops };
+  const { nnzL, flops } = countFill(g, perm);
+  return { nnz: nnzL, flops };
 }
 
 const randomGraph = fc.integer({ min: 0, max: 400 }).chain((n) => fc.tuple(
