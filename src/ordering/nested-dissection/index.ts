@@ -122,8 +122,8 @@ function findSeparator(s: State, piece: Piece): Int8Array {
   const mode = s.o.coordinateMode ?? "refine";
   if (c === undefined || mode === "ignore") return multilevelSeparator(g, s.rng, s.bisect, s.work);
   const cut = coordinateCut(g, ids, c);
-  if (mode === "plain") return separate(g, { label: cut, weight: [0, 0], cut: 0 }, { ...s.bisect, separatorRefinement: "none" }, s.work);
-  const refined = separate(g, refineGiven(g, cut, s.bisect, s.work), s.bisect, s.work, true);
+  if (mode === "plain") return separate(g, cut, { ...s.bisect, separatorRefinement: "none" }, s.work);
+  const refined = separate(g, refineGiven(g, cut, s.bisect, s.work).label, s.bisect, s.work, true);
   return lighter(g, refined, multilevelSeparator(g, s.rng, s.bisect, s.work));
 }
 

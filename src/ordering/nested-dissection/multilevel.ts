@@ -84,12 +84,11 @@ export function refineGiven(g: WGraph, label: Int8Array, o: BisectOptions, work:
 }
 
 /**
- * Vertex separator of g from an edge bisection: labels 0 / 1 for the parts, 2
- * for the separator. `evaluated`: b is the bisection last evaluated or refined
- * with `work`, so the work's boundary list is b's boundary.
+ * Vertex separator of g from a 2-way labelling, in place: labels 0 / 1 for the
+ * parts, 2 for the separator. `evaluated`: the labelling is the bisection last
+ * evaluated or refined with `work`, so the work's boundary list is its boundary.
  */
-export function separate(g: WGraph, b: Bisection, o: BisectOptions, work: FmWork, evaluated = false): Int8Array {
-  const label = b.label;
+export function separate(g: WGraph, label: Int8Array, o: BisectOptions, work: FmWork, evaluated = false): Int8Array {
   vertexSeparatorFromCut(g, label, work.cover, evaluated ? { list: work.boundary, count: work.boundaryCount } : undefined);
   if (o.separatorRefinement !== "none") {
     refineSeparator(g, separatorState(g, label), partBound(g, o.separatorImbalance), o.passes, work);
@@ -105,12 +104,12 @@ export function multilevelSeparator(g: WGraph, rng: Rng, o: BisectOptions, work:
   const levels = coarsen(g, rng, o.coarsestSize, work.arenas);
   const start = coarsestBisection(g, levels, rng, o, work);
   if (o.separatorRefinement === "finest" || o.separatorRefinement === "none") {
-    return separate(g, uncoarsenBisection(g, levels, start, o, work), o, work, true);
+    return separate(g, uncoarsenBisection(g, levels, start, o, work).label, o, work, true);
   }
   const copy: Bisection = { label: start.label.slice(), weight: [start.weight[0], start.weight[1]], cut: start.cut };
   const a = separatorByLevels(g, levels, start, o, work);
   if (o.separatorRefinement === "all" || g.n < o.bothAbove) return a;
-  return lighter(g, a, separate(g, uncoarsenBisection(g, levels, copy, o, work), o, work, true));
+  return lighter(g, a, separate(g, uncoarsenBisection(g, levels, copy, o, work).label, o, work, true));
 }
 
 /** The labelling with the lighter separator; ties go to the better balance. */
@@ -124,7 +123,7 @@ export function lighter(g: WGraph, a: Int8Array, b: Int8Array): Int8Array {
 /** Cover on the coarsest graph, then separator FM on every level while projecting back. */
 function separatorByLevels(g: WGraph, levels: Level[], start: Bisection, o: BisectOptions, work: FmWork): Int8Array {
   const coarsest = levels.length > 0 ? levels[levels.length - 1].graph : g;
-  let label = separate(coarsest, start, o, work, true);
+  let label = separate(coarsest, start.label, o, work, true);
   for (let i = levels.length - 1; i >= 0; i--) {
     const fine = i > 0 ? levels[i - 1].graph : g;
     const fineLabel = project(fine, levels[i], label);
