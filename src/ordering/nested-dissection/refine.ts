@@ -94,6 +94,11 @@ export function excess(b: { readonly weight: readonly number[] }, maxPart: numbe
   return Math.max(0, b.weight[0] - maxPart, b.weight[1] - maxPart);
 }
 
+/** Moves without improvement after which an FM pass stops (edge and separator passes alike). */
+export function patience(n: number): number {
+  return Math.max(15, Math.min(150, n >> 6));
+}
+
 /** Runs up to `passes` FM passes on b (freshly evaluated with w) in place. */
 export function refineBisection(g: WGraph, b: Bisection, maxPart: number, passes: number, w: FmWork): void {
   for (let pass = 0; pass < passes; pass++) {
@@ -110,7 +115,7 @@ function fmPass(g: WGraph, b: Bisection, maxPart: number, w: FmWork): void {
     const v = w.boundary[i];
     heaps[b.label[v]].push(v, w.ed[v] - w.id[v]);
   }
-  const limit = Math.max(15, Math.min(150, g.n >> 6));
+  const limit = patience(g.n);
   let count = 0;
   let bestCount = 0;
   let bestCut = b.cut;

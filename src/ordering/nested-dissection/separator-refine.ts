@@ -8,7 +8,7 @@
  * separator weight. Moves run in order of gain under a balance bound, each
  * vertex is locked once moved, and the pass rolls back to its best state.
  */
-import { excess, type FmWork } from "./refine.js";
+import { excess, patience, type FmWork } from "./refine.js";
 import type { WGraph } from "./wgraph.js";
 
 /** Separator state: label[v] ∈ {0, 1, 2 (separator)} and the three weights. */
@@ -97,7 +97,7 @@ function separatorPass(g: WGraph, st: SeparatorState, maxPart: number, w: FmWork
     pushBoth(g, label, v, heaps);
   }
   log.length = 0;
-  const limit = Math.max(15, Math.min(150, g.n >> 6));
+  const limit = patience(g.n);
   let bestEx = excess(st, maxPart);
   let bestSep = st.weight[2];
   let bestImb = Math.abs(st.weight[0] - st.weight[1]);
