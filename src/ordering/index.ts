@@ -115,7 +115,7 @@ function expandTree(c: CompressedGraph, perm: Int32Array, t: SeparatorTree): Sep
 }
 
 /** Checks that p is a permutation of 0..n−1; the error names the first bad entry. */
-export function validatePermutation(p: Int32Array, n: number): Int32Array {
+function validatePermutation(p: Int32Array, n: number): Int32Array {
   if (p.length !== n) throw new InputError(`ordering has length ${p.length}, expected n = ${n}`);
   const seen = new Int32Array(n).fill(-1);
   for (let k = 0; k < n; k++) {

@@ -10,7 +10,7 @@ import type { Rng } from "./rng.js";
 import type { WGraph } from "./wgraph.js";
 
 /** Grows part 0 from `seed` to half the total weight; returns the labelling. */
-export function growFrom(g: WGraph, seed: number, heap: MaxHeap, rng: Rng): Int8Array {
+function growFrom(g: WGraph, seed: number, heap: MaxHeap, rng: Rng): Int8Array {
   const label = new Int8Array(g.n).fill(1);
   const half = g.totalWeight / 2;
   let w0 = 0;

@@ -16,7 +16,7 @@ export interface Level {
 }
 
 /** Heavy-edge matching; returns match[v] (v itself when unmatched). */
-export function heavyEdgeMatching(g: WGraph, rng: Rng, maxVertexWeight: number, arena: Int32Arena): Int32Array {
+function heavyEdgeMatching(g: WGraph, rng: Rng, maxVertexWeight: number, arena: Int32Arena): Int32Array {
   const { n, offsets, neighbours, edgeWeight, vertexWeight } = g;
   const match = arena.take(n).fill(-1);
   const visit = blockShuffledOrder(n, rng, arena);
@@ -57,7 +57,7 @@ function blockShuffledOrder(n: number, rng: Rng, arena: Int32Arena): Int32Array 
 }
 
 /** Contracts matched pairs into single vertices, summing vertex and parallel-edge weights. */
-export function contract(g: WGraph, match: Int32Array, arenas: HierarchyArenas): Level {
+function contract(g: WGraph, match: Int32Array, arenas: HierarchyArenas): Level {
   const { n, offsets: fx, neighbours: fa, edgeWeight: fe, vertexWeight: fv } = g;
   const coarseOf = arenas.vertices.take(n);
   let nc = 0;
