@@ -73,6 +73,15 @@ describe("computeOrdering", () => {
     expect(() => computeOrdering(g, { ordering: "nested-dissection", coordinates: bad })).toThrow(/coordinates\[7\] \(vertex 3, axis 1\)/);
   });
 
+  it("a malformed graph given to nested dissection is an InputError, not a crash deep in the dissection", () => {
+    // One-directional edge 0→1 (the definition of an undirected adjacency needs both directions).
+    const oneWay = { n: 300, offsets: new Int32Array(301).fill(1), neighbours: Int32Array.from([1]) };
+    oneWay.offsets[0] = 0;
+    expect(() => computeOrdering(oneWay, { ordering: "nested-dissection" })).toThrow(InputError);
+    const outOfRange = { n: 3, offsets: Int32Array.from([0, 1, 2, 2]), neighbours: Int32Array.from([1, 7]) };
+    expect(() => computeOrdering(outOfRange, { ordering: "nested-dissection" })).toThrow(InputError);
+  });
+
   it("stops with AbortedError when the signal is aborted, before or during the dissection", () => {
     const g = grid2(60);
     const before = new AbortController();

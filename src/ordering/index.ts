@@ -7,6 +7,7 @@
  */
 import { AbortedError, InputError } from "../errors.js";
 import { compressGraph, expandPermutation, type CompressedGraph } from "../graph/compress.js";
+import { checkGraph } from "../graph/check.js";
 import type { Graph } from "../graph/types.js";
 import { validateCoordinates, type Coordinates } from "./coordinates.js";
 import { defaultDenseThreshold, minimumDegree, minimumDegreeTrusted } from "./minimum-degree.js";
@@ -76,6 +77,7 @@ function identity(n: number): Int32Array {
 
 /** Nested dissection, on the compressed graph when compression pays. */
 function dissect(g: Graph, options: OrderingOptions): OrderingResult {
+  checkGraph(g, "nestedDissection");
   const coordinates = options.coordinates ? validateCoordinates(options.coordinates, g.n) : undefined;
   const mode = options.coordinateMode;
   if (mode !== undefined && mode !== "refine" && mode !== "plain" && mode !== "ignore") {

@@ -8,7 +8,7 @@
  */
 import { InputError } from "../errors.js";
 import type { Graph } from "../graph/types.js";
-import { checkGraph } from "./minimum-degree/check-graph.js";
+import { checkGraph } from "../graph/check.js";
 import { buildElement, externalSizes, type NewElement } from "./minimum-degree/pivot-element.js";
 import { finishElement, mergeIndistinguishable, pruneAndBound } from "./minimum-degree/update.js";
 import { bucketInsert, bucketRemove, emitMembers, MARK_START, MdWorkspace } from "./minimum-degree/workspace.js";

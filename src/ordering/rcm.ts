@@ -7,7 +7,7 @@
  * Linear time apart from sorting each vertex's new neighbours by degree.
  */
 import type { Graph } from "../graph/types.js";
-import { checkGraph } from "./minimum-degree/check-graph.js";
+import { checkGraph } from "../graph/check.js";
 
 /** Cap on start-vertex searches per component; the level count rarely grows more than a few times. */
 const MAX_START_SEARCHES = 16;

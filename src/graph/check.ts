@@ -8,8 +8,8 @@
  * increasing order, the entries above u in u's list must appear exactly as the
  * vertices v > u that list u, in the same order, so a cursor per vertex suffices.
  */
-import { InputError } from "../../errors.js";
-import type { Graph } from "../../graph/types.js";
+import { InputError } from "../errors.js";
+import type { Graph } from "./types.js";
 
 /** Throws InputError naming the first offending vertex/entry (original numbering). */
 export function checkGraph(graph: Graph, who: string): void {
