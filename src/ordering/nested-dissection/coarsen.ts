@@ -77,10 +77,19 @@ function contract(g: WGraph, match: Int32Array, arenas: HierarchyArenas): Level 
     const u = match[v];
     if (u < v) continue;
     const start = k;
-    vertexWeight[c] = fv[v] + (u !== v ? fv[u] : 0);
-    for (let w = v, side = 0; side < 2; side++, w = u) {
-      if (side === 1 && u === v) break;
-      for (let p = fx[w], pe = fx[w + 1]; p < pe; p++) {
+    vertexWeight[c] = fv[v];
+    for (let p = fx[v], pe = fx[v + 1]; p < pe; p++) {
+      const t = coarseOf[fa[p]];
+      if (t === c) continue;
+      const q = slot[t];
+      if (q >= start) { edgeWeight[q] += fe[p]; continue; }
+      slot[t] = k;
+      neighbours[k] = t;
+      edgeWeight[k++] = fe[p];
+    }
+    if (u !== v) {
+      vertexWeight[c] += fv[u];
+      for (let p = fx[u], pe = fx[u + 1]; p < pe; p++) {
         const t = coarseOf[fa[p]];
         if (t === c) continue;
         const q = slot[t];
