@@ -11,6 +11,7 @@ import { checkGraph } from "../graph/check.js";
 import type { Graph } from "../graph/types.js";
 import { validateCoordinates, type Coordinates } from "./coordinates.js";
 import { defaultDenseThreshold, minimumDegree, minimumDegreeTrusted } from "./minimum-degree.js";
+import { LEAF_LIMIT, leafMinimumDegree, leafWork } from "./leaf-degree.js";
 import { nestedDissection } from "./nested-dissection/index.js";
 import { reverseCuthillMcKee } from "./rcm.js";
 import type { OrderingResult, SeparatorTree } from "./types.js";
@@ -83,8 +84,11 @@ function dissect(g: Graph, options: OrderingOptions): OrderingResult {
   if (mode !== undefined && mode !== "refine" && mode !== "plain" && mode !== "ignore") {
     throw new InputError(`coordinateMode must be "refine", "plain" or "ignore", got ${String(mode)}`);
   }
-  // leaves set dense rows aside as minimum degree does by default (keeps star-like leaves linear)
-  const orderLeaf = (leaf: Graph): Int32Array => minimumDegreeTrusted(leaf, defaultDenseThreshold(leaf.n), true);
+  // small leaves: exact minimum degree on bitsets; larger ones: approximate minimum degree,
+  // setting dense rows aside as it does by default (keeps star-like leaves linear)
+  const work = leafWork();
+  const orderLeaf = (leaf: Graph): Int32Array => (leaf.n <= LEAF_LIMIT
+    ? leafMinimumDegree(leaf, work) : minimumDegreeTrusted(leaf, defaultDenseThreshold(leaf.n), true));
   const common = {
     orderLeaf, seed: options.seed, signal: options.signal, onProgress: options.onProgress, coordinateMode: options.coordinateMode,
   };
