@@ -1,7 +1,9 @@
 /** `septum report`: the HTML page for one matrix. */
 import type { SparseMatrix } from "../matrix/sparse.js";
 import type { OrderingName } from "../solver/analyze.js";
+import { adjacencyGraph } from "../graph/adjacency.js";
 import { renderReport } from "../report/page.js";
+import { exactFactorPattern } from "../report/pattern.js";
 import type { ReportInput, ReportOrdering } from "../report/types.js";
 import { analyzeAll, type Analysed } from "./analyze.js";
 import { writeText } from "./files.js";
@@ -13,18 +15,22 @@ import { VERSION } from "./version.js";
 
 /** Report input from analyses of the lower triangle of A. */
 export function reportInput(title: string, source: string, A: SparseMatrix, list: readonly Analysed[], shown: OrderingName, factorSeconds?: readonly number[]): ReportInput {
-  const orderings: ReportOrdering[] = list.map((a, i) => ({
-    name: a.ordering,
-    permutation: a.analysis.orderingPermutation,
-    separatorTree: a.analysis.separatorTree,
-    structure: a.analysis.structure,
-    structurePermutation: a.analysis.permutation,
-    figures: {
-      nnzL: a.analysis.stats.nnzL, flops: a.analysis.stats.flops, supernodes: a.analysis.stats.supernodes,
-      factorBytes: a.analysis.stats.factorBytes, orderingSeconds: a.analysis.stats.orderingSeconds, analyzeSeconds: a.seconds,
-      factorSeconds: factorSeconds?.[i],
-    },
-  }));
+  const graph = adjacencyGraph(A);
+  const orderings: ReportOrdering[] = list.map((a, i) => {
+    const exact = exactFactorPattern(graph, a.analysis.orderingPermutation);
+    return {
+      name: a.ordering,
+      permutation: a.analysis.orderingPermutation,
+      separatorTree: a.analysis.separatorTree,
+      structure: exact.structure,
+      structurePermutation: exact.permutation,
+      figures: {
+        nnzL: a.analysis.stats.nnzL, flops: a.analysis.stats.flops, supernodes: a.analysis.stats.supernodes,
+        factorBytes: a.analysis.stats.factorBytes, orderingSeconds: a.analysis.stats.orderingSeconds, analyzeSeconds: a.seconds,
+        factorSeconds: factorSeconds?.[i],
+      },
+    };
+  });
   const nnzLower = A.colPtr[A.ncols];
   let diag = 0;
   for (let j = 0; j < A.ncols; j++) for (let p = A.colPtr[j]; p < A.colPtr[j + 1]; p++) if (A.rowIdx[p] === j) diag++;
