@@ -73,6 +73,7 @@ function contract(g: WGraph, match: Int32Array, arenas: HierarchyArenas): Level 
   offsets[0] = 0;
   let k = 0;
   let c = 0;
+  let max = 0;
   for (let v = 0; v < n; v++) {
     const u = match[v];
     if (u < v) continue;
@@ -99,10 +100,11 @@ function contract(g: WGraph, match: Int32Array, arenas: HierarchyArenas): Level 
         edgeWeight[k++] = fe[p];
       }
     }
+    if (vertexWeight[c] > max) max = vertexWeight[c];
     offsets[++c] = k;
   }
   const graph: WGraph = {
-    n: nc, offsets, neighbours: arenas.adjacency.trim(neighbours, k), edgeWeight: arenas.edgeWeights.trim(edgeWeight, k), vertexWeight, totalWeight: g.totalWeight,
+    n: nc, offsets, neighbours: arenas.adjacency.trim(neighbours, k), edgeWeight: arenas.edgeWeights.trim(edgeWeight, k), vertexWeight, totalWeight: g.totalWeight, maxVertexWeight: max,
   };
   return { graph, coarseOf };
 }

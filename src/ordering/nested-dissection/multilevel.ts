@@ -41,9 +41,7 @@ export const defaultBisectOptions: BisectOptions = {
 
 /** Largest admissible part weight for graph g. */
 function partBound(g: WGraph, imbalance: number): number {
-  let maxV = 0;
-  for (let v = 0; v < g.n; v++) if (g.vertexWeight[v] > maxV) maxV = g.vertexWeight[v];
-  return Math.max(Math.ceil((g.totalWeight * (1 + imbalance)) / 2), Math.ceil((g.totalWeight + maxV) / 2));
+  return Math.max(Math.ceil((g.totalWeight * (1 + imbalance)) / 2), Math.ceil((g.totalWeight + g.maxVertexWeight) / 2));
 }
 
 /** Greedy-growing tries: all of them on large pieces, fewer on the many small ones. */

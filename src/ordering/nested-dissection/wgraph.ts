@@ -19,15 +19,21 @@ export interface WGraph {
   readonly edgeWeight: Int32Array;
   readonly vertexWeight: Int32Array;
   readonly totalWeight: number;
+  /** The largest vertex weight (0 for an empty graph). */
+  readonly maxVertexWeight: number;
 }
 
 /** Wraps an unweighted graph; `vertexWeights` defaults to all ones. */
 export function weightedGraph(g: Graph, vertexWeights?: Int32Array): WGraph {
   const vertexWeight = vertexWeights ?? new Int32Array(g.n).fill(1);
   let total = 0;
-  for (let v = 0; v < g.n; v++) total += vertexWeight[v];
+  let max = 0;
+  for (let v = 0; v < g.n; v++) {
+    total += vertexWeight[v];
+    if (vertexWeight[v] > max) max = vertexWeight[v];
+  }
   const edgeWeight = new Int32Array(g.neighbours.length).fill(1);
-  return { n: g.n, offsets: g.offsets, neighbours: g.neighbours, edgeWeight, vertexWeight, totalWeight: total };
+  return { n: g.n, offsets: g.offsets, neighbours: g.neighbours, edgeWeight, vertexWeight, totalWeight: total, maxVertexWeight: max };
 }
 
 /**
@@ -50,10 +56,12 @@ export function inducedSubgraph(g: WGraph, vertices: Int32Array, localOf: Int32A
   const vertexWeight = new Int32Array(m);
   let k = 0;
   let total = 0;
+  let max = 0;
   for (let i = 0; i < m; i++) {
     const v = vertices[i];
     vertexWeight[i] = gv[v];
     total += gv[v];
+    if (gv[v] > max) max = gv[v];
     for (let p = gx[v], pe = gx[v + 1]; p < pe; p++) {
       const u = localOf[ga[p]];
       if (u >= 0) { neighbours[k] = u; edgeWeight[k++] = ge[p]; }
@@ -63,7 +71,7 @@ export function inducedSubgraph(g: WGraph, vertices: Int32Array, localOf: Int32A
   for (let i = 0; i < m; i++) localOf[vertices[i]] = -1;
   // edges leaving the piece were counted in the bound: trim (a copy only when much was cut off)
   const trim = (a: Int32Array): Int32Array => (k === bound ? a : 2 * k >= bound ? a.subarray(0, k) : a.slice(0, k));
-  return { n: m, offsets, neighbours: trim(neighbours), edgeWeight: trim(edgeWeight), vertexWeight, totalWeight: total };
+  return { n: m, offsets, neighbours: trim(neighbours), edgeWeight: trim(edgeWeight), vertexWeight, totalWeight: total, maxVertexWeight: max };
 }
 
 /**
