@@ -41,3 +41,20 @@ export function graphOf(n: number, add: (edge: (a: number, b: number) => void) =
   for (let v = 0; v < n; v++) neighbours.set([...sets[v]].sort((x, y) => x - y), offsets[v]);
   return { n, offsets, neighbours };
 }
+
+/** nnz(L) incl. diagonal by brute-force symbolic elimination in the given order (the definition; Rose 1972 graph model). */
+export function eliminationFill(g: Graph, perm: ArrayLike<number>): number {
+  const adj: Set<number>[] = Array.from({ length: g.n }, (_, v) => new Set(g.neighbours.subarray(g.offsets[v], g.offsets[v + 1])));
+  let nnz = g.n;
+  for (let k = 0; k < perm.length; k++) {
+    const v = perm[k];
+    const nb = [...adj[v]];
+    nnz += nb.length;
+    for (const a of nb) {
+      adj[a].delete(v);
+      for (const b of nb) if (a !== b) adj[a].add(b);
+    }
+    adj[v].clear();
+  }
+  return nnz;
+}
