@@ -1,6 +1,6 @@
 import fc from "fast-check";
 import { describe, expect, it } from "vitest";
-import { compressGraph, expandPermutation } from "../src/graph/compress.js";
+import { compressGraph, compressIfSmaller, expandPermutation } from "../src/graph/compress.js";
 import type { Graph } from "../src/graph/types.js";
 import { graphFromEdges } from "./helpers/graphs.js";
 
@@ -106,5 +106,17 @@ describe("compressGraph", () => {
     expect(compressGraph({ n: 0, offsets: new Int32Array(1), neighbours: new Int32Array(0) }).graph.n).toBe(0);
     const star = graphFromEdges(50, Array.from({ length: 49 }, (_, i) => [0, i + 1] as [number, number]));
     expect(compressGraph(star).graph.n).toBe(50);
+  });
+
+  it("compressIfSmaller gives compressGraph's result when it shrinks enough and null otherwise (property, brute-force class count)", () => {
+    fc.assert(fc.property(twinGraph, ([n, edges, copies]) => {
+      const g = withTwins(n, edges, copies);
+      const classes = new Set(Array.from({ length: g.n }, (_, v) => closedKey(g, v))).size;
+      for (const ratio of [0.5, 0.75, 1]) {
+        const c = compressIfSmaller(g, ratio);
+        if (classes > ratio * g.n) expect(c).toBeNull();
+        else expect(c).toEqual(compressGraph(g));
+      }
+    }), { numRuns: 200 });
   });
 });

@@ -78,8 +78,23 @@ function findRepresentatives(g: Graph): Int32Array {
  * order of their first (lowest-numbered) member; members are listed ascending.
  */
 export function compressGraph(graph: Graph): CompressedGraph {
-  const n = graph.n;
+  return compressed(graph, findRepresentatives(graph));
+}
+
+/**
+ * compressGraph when the quotient graph keeps at most `ratio` of the vertices,
+ * else null — found from the representatives alone, before the quotient graph
+ * (the costly part) is built.
+ */
+export function compressIfSmaller(graph: Graph, ratio: number): CompressedGraph | null {
   const rep = findRepresentatives(graph);
+  let m = 0;
+  for (let v = 0; v < graph.n; v++) if (rep[v] === v) m++;
+  return m > ratio * graph.n ? null : compressed(graph, rep);
+}
+
+function compressed(graph: Graph, rep: Int32Array): CompressedGraph {
+  const n = graph.n;
   const supervariableOf = new Int32Array(n);
   let m = 0;
   for (let v = 0; v < n; v++) supervariableOf[v] = rep[v] === v ? m++ : supervariableOf[rep[v]];

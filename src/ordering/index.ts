@@ -6,7 +6,7 @@
  * separator tree when nested dissection built one.
  */
 import { AbortedError, InputError } from "../errors.js";
-import { compressGraph, expandPermutation, type CompressedGraph } from "../graph/compress.js";
+import { compressIfSmaller, expandPermutation, type CompressedGraph } from "../graph/compress.js";
 import { checkGraph } from "../graph/check.js";
 import type { Graph } from "../graph/types.js";
 import { validateCoordinates, type Coordinates } from "./coordinates.js";
@@ -92,8 +92,8 @@ function dissect(g: Graph, options: OrderingOptions): OrderingResult {
   const common = {
     orderLeaf, seed: options.seed, signal: options.signal, onProgress: options.onProgress, coordinateMode: options.coordinateMode,
   };
-  const c = g.n > DISSECTION_THRESHOLD ? compressGraph(g) : null;
-  if (c === null || c.graph.n > COMPRESSION_RATIO * g.n) return nestedDissection(g, { ...common, coordinates });
+  const c = g.n > DISSECTION_THRESHOLD ? compressIfSmaller(g, COMPRESSION_RATIO) : null;
+  if (c === null) return nestedDissection(g, { ...common, coordinates });
   const r = nestedDissection(c.graph, {
     ...common, vertexWeights: c.weights, coordinates: coordinates && compressCoordinates(c, coordinates),
   });
