@@ -2,7 +2,7 @@
 import type { SparseMatrix } from "../matrix/sparse.js";
 import type { OrderingName } from "../solver/analyze.js";
 import { adjacencyGraph } from "../graph/adjacency.js";
-import { renderReport } from "../report/page.js";
+import { renderReport, THUMBNAIL_LIMIT } from "../report/page.js";
 import { exactFactorPattern } from "../report/pattern.js";
 import type { ReportInput, ReportOrdering } from "../report/types.js";
 import { analyzeAll, type Analysed } from "./analyze.js";
@@ -17,13 +17,16 @@ import { VERSION } from "./version.js";
 export function reportInput(title: string, source: string, A: SparseMatrix, list: readonly Analysed[], shown: OrderingName, factorSeconds?: readonly number[]): ReportInput {
   const graph = adjacencyGraph(A);
   const orderings: ReportOrdering[] = list.map((a, i) => {
-    const exact = exactFactorPattern(graph, a.analysis.orderingPermutation);
+    // the exact pattern costs a second symbolic pass and up to nnz(L) row indices: only
+    // for factors small enough to be drawn as thumbnails; larger ones are drawn from the
+    // analysis's own structure, which may show explicit zeros of amalgamation
+    const exact = a.analysis.stats.nnzL <= THUMBNAIL_LIMIT ? exactFactorPattern(graph, a.analysis.orderingPermutation) : null;
     return {
       name: a.ordering,
       permutation: a.analysis.orderingPermutation,
       separatorTree: a.analysis.separatorTree,
-      structure: exact.structure,
-      structurePermutation: exact.permutation,
+      structure: exact?.structure ?? a.analysis.structure,
+      structurePermutation: exact?.permutation ?? a.analysis.permutation,
       figures: {
         nnzL: a.analysis.stats.nnzL, flops: a.analysis.stats.flops, supernodes: a.analysis.stats.supernodes,
         factorBytes: a.analysis.stats.factorBytes, orderingSeconds: a.analysis.stats.orderingSeconds, analyzeSeconds: a.seconds,

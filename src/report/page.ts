@@ -116,7 +116,7 @@ function compose(drawnInverse: Int32Array, structurePermutation: Int32Array): In
 }
 
 /** Largest factor drawn as a thumbnail (binning costs one pass over L). */
-const THUMBNAIL_LIMIT = 5e7;
+export const THUMBNAIL_LIMIT = 5e7;
 
 /** The factor of every ordering as a small picture, each in its own structure numbering. */
 function factorThumbnails(r: ReportInput): string {
