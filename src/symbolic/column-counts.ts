@@ -22,8 +22,6 @@ export function columnCounts(
   g: Graph, permutation: Int32Array, inverse: Int32Array, parent: Int32Array, order: Int32Array,
 ): Int32Array {
   const n = g.n, { offsets, neighbours } = g;
-  const position = new Int32Array(n);   // postorder position of each node
-  for (let t = 0; t < n; t++) position[order[t]] = t;
   const first = new Int32Array(n).fill(-1); // smallest position in each subtree
   const delta = new Int32Array(n);
   for (let t = 0; t < n; t++) {
