@@ -10,8 +10,8 @@ import { compressIfSmaller, expandPermutation, type CompressedGraph } from "../g
 import { checkGraph } from "../graph/check.js";
 import type { Graph } from "../graph/types.js";
 import { validateCoordinates, type Coordinates } from "./coordinates.js";
-import { defaultDenseThreshold, minimumDegree, minimumDegreeTrusted } from "./minimum-degree.js";
-import { LEAF_LIMIT, leafMinimumDegree, leafWork } from "./leaf-degree.js";
+import { minimumDegree } from "./minimum-degree.js";
+import { leafMinimumDegree, leafWork } from "./leaf-degree.js";
 import { nestedDissection } from "./nested-dissection/index.js";
 import { reverseCuthillMcKee } from "./rcm.js";
 import type { OrderingResult, SeparatorTree } from "./types.js";
@@ -87,8 +87,7 @@ function dissect(g: Graph, options: OrderingOptions): OrderingResult {
   // small leaves: exact minimum degree on bitsets; larger ones: approximate minimum degree,
   // setting dense rows aside as it does by default (keeps star-like leaves linear)
   const work = leafWork();
-  const orderLeaf = (leaf: Graph): Int32Array => (leaf.n <= LEAF_LIMIT
-    ? leafMinimumDegree(leaf, work) : minimumDegreeTrusted(leaf, defaultDenseThreshold(leaf.n), true));
+  const orderLeaf = (leaf: Graph): Int32Array => leafMinimumDegree(leaf, work);
   const common = {
     orderLeaf, seed: options.seed, signal: options.signal, onProgress: options.onProgress, coordinateMode: options.coordinateMode,
   };
