@@ -2,7 +2,7 @@ import fc from "fast-check";
 import { describe, expect, it } from "vitest";
 import type { Graph } from "../src/graph/types.js";
 import { expectPermutation, graphOf } from "./helpers/graphs.js";
-import { validateCoordinates } from "../src/ordering/coordinates.js";
+import { coordinateCut, validateCoordinates } from "../src/ordering/coordinates.js";
 import { minimumDegree } from "../src/ordering/minimum-degree.js";
 import { Int32Arena } from "../src/ordering/nested-dissection/arena.js";
 import { nestedDissection } from "../src/ordering/nested-dissection/index.js";
@@ -294,5 +294,33 @@ describe("nested dissection: hierarchy arena", () => {
     expect(d.buffer).not.toBe(a.buffer);
     arena.reset();
     expect(arena.take(10).buffer).toBe(a.buffer);
+  });
+});
+
+describe("nested dissection: coordinate cut", () => {
+  it("labels 0 exactly the weighted lower half of the (coordinate, index) order along the widest axis (reference: a full sort, the definition)", () => {
+    const problem = fc.integer({ min: 1, max: 120 }).chain((n) => fc.record({
+      d: fc.constantFrom(2, 3),
+      values: fc.array(fc.integer({ min: 0, max: 6 }), { minLength: 3 * n, maxLength: 3 * n }), // few values: many ties
+      weights: fc.array(fc.integer({ min: 1, max: 9 }), { minLength: n, maxLength: n }),
+    }));
+    fc.assert(fc.property(problem, ({ d, values, weights }) => {
+      const n = weights.length;
+      const x = Float64Array.from(values.slice(0, d * n));
+      const g = weightedGraph({ n, offsets: new Int32Array(n + 1), neighbours: new Int32Array(0) }, Int32Array.from(weights));
+      const ids = Int32Array.from({ length: n }, (_, i) => i);
+      const label = coordinateCut(g, ids, { dimension: d as 2 | 3, values: x });
+      let axis = 0, widest = -1;
+      for (let a = 0; a < d; a++) {
+        const col = Array.from({ length: n }, (_, i) => x[i * d + a]);
+        if (Math.max(...col) - Math.min(...col) > widest) { widest = Math.max(...col) - Math.min(...col); axis = a; }
+      }
+      const order = ids.slice().sort((a, b) => x[a * d + axis] - x[b * d + axis] || a - b);
+      let before = 0;
+      for (const v of order) {
+        expect(label[v]).toBe(before < g.totalWeight / 2 ? 0 : 1);
+        before += weights[v];
+      }
+    }), { numRuns: 300 });
   });
 });

@@ -55,14 +55,51 @@ export function coordinateCut(g: WGraph, ids: Int32Array, c: Coordinates): Int8A
   }
   const key = new Float64Array(g.n);
   for (let i = 0; i < g.n; i++) key[i] = x[ids[i] * d + axis];
-  const order = new Int32Array(g.n);
-  for (let i = 0; i < g.n; i++) order[i] = i;
-  order.sort((a, b) => key[a] - key[b] || a - b);
-  const label = new Int8Array(g.n).fill(1);
-  let w = 0;
-  for (let k = 0; k < g.n && w < g.totalWeight / 2; k++) {
-    label[order[k]] = 0;
-    w += g.vertexWeight[order[k]];
+  return lowerHalf(key, g.vertexWeight, g.totalWeight / 2);
+}
+
+/**
+ * Labels 0 every vertex whose weight strictly before it, in the order of
+ * (key, index), is below `half`, and 1 the rest: the lower half of a weighted
+ * sort, found by quickselect (Hoare 1961, "Algorithm 65: Find", CACM 4(7))
+ * with median-of-three pivots, in expected linear time and without sorting.
+ */
+function lowerHalf(key: Float64Array, weight: Int32Array, half: number): Int8Array {
+  const n = key.length;
+  const label = new Int8Array(n).fill(1);
+  const idx = new Int32Array(n);
+  for (let i = 0; i < n; i++) idx[i] = i;
+  const before = (a: number, b: number): boolean => key[a] < key[b] || (key[a] === key[b] && a < b);
+  let lo = 0;
+  let hi = n;
+  let base = 0; // weight known to come before idx[lo..hi)
+  while (lo < hi) {
+    swap(idx, medianOfThree(idx, lo, (lo + hi) >> 1, hi - 1, before), hi - 1);
+    const p = idx[hi - 1];
+    let m = lo;
+    let lighter = 0;
+    for (let k = lo; k < hi - 1; k++) {
+      if (before(idx[k], p)) { lighter += weight[idx[k]]; swap(idx, k, m++); }
+    }
+    swap(idx, m, hi - 1);
+    if (base + lighter < half) {
+      for (let k = lo; k <= m; k++) label[idx[k]] = 0;
+      base += lighter + weight[p];
+      lo = m + 1;
+    } else {
+      hi = m;
+    }
   }
   return label;
+}
+
+function swap(a: Int32Array, i: number, j: number): void {
+  const t = a[i]; a[i] = a[j]; a[j] = t;
+}
+
+/** The position among i, j, k holding the median of their entries. */
+function medianOfThree(idx: Int32Array, i: number, j: number, k: number, before: (a: number, b: number) => boolean): number {
+  const a = idx[i], b = idx[j], c = idx[k];
+  if (before(a, b)) return before(b, c) ? j : before(a, c) ? k : i;
+  return before(a, c) ? i : before(b, c) ? k : j;
 }
