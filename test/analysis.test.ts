@@ -4,6 +4,7 @@ import { analyze, Analysis, geometricLaplacian, grid3d } from "../src/index.js";
 import { SparseMatrix } from "../src/matrix/sparse.js";
 import { FormatError, InputError, AbortedError } from "../src/errors.js";
 import { symmetricMultiply } from "../src/matrix/symmetric.js";
+import { encodeAnalysis } from "../src/solver/serialize.js";
 import { bruteForceCounts, grid2d, laplacian1d, patternMatrix } from "./helpers/patterns.js";
 
 const identity = (n: number) => Int32Array.from({ length: n }, (_, i) => i);
@@ -129,6 +130,20 @@ describe("Analysis bytes", () => {
     const version = bytes.slice();
     version[8] = 99;
     expect(() => Analysis.fromBytes(version)).toThrow(/version 99/);
+  });
+
+  it("bytes with a valid checksum but a supernode whose rows are not its parent's are a FormatError", () => {
+    // The multifrontal extend-add needs each child's rows below its columns among its parent's rows
+    // (supernodal elimination tree, common practice); a re-checksummed edit must not slip through.
+    const a = analyze(grid2d(8), { ordering: "natural" });
+    const st = a.structure, ns = st.supernodeCount, root = ns - 1;
+    let s = 0;
+    while (!(st.superParent[s] >= 0 && st.superParent[s] !== root)) s++;
+    const superParent = st.superParent.slice();
+    superParent[s] = root; // still a later supernode, so every per-supernode check passes
+    const bytes = encodeAnalysis({ ...a, structure: { ...st, superParent } });
+    expect(() => Analysis.fromBytes(bytes)).toThrow(/does not meet its parent|rows outside its parent/);
+    expect(() => Analysis.fromBytes(encodeAnalysis(a))).not.toThrow();
   });
 
   it("a loaded analysis factors and solves like the original", () => {

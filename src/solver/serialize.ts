@@ -184,6 +184,37 @@ function checkStructure(
     }
     columnSupernode.fill(s, f, l);
   }
+  checkNesting(n, ns, superStart, superParent, rowPtr, rowIdx, bad);
+}
+
+/**
+ * Every supernode's rows below its columns must start inside its parent's
+ * columns and all be rows of its parent (a root has none): the extend-add of
+ * the numeric phase relies on it. One pass per parent with a row marker.
+ */
+function checkNesting(
+  n: number, ns: number, superStart: Int32Array, superParent: Int32Array, rowPtr: Int32Array, rowIdx: Int32Array,
+  bad: (why: string) => never,
+): void {
+  const childStart = new Int32Array(ns + 1);
+  for (let s = 0; s < ns; s++) if (superParent[s] >= 0) childStart[superParent[s] + 1]++;
+  for (let p = 0; p < ns; p++) childStart[p + 1] += childStart[p];
+  const fill = childStart.slice(0, ns);
+  const children = new Int32Array(childStart[ns]);
+  for (let s = 0; s < ns; s++) if (superParent[s] >= 0) children[fill[superParent[s]]++] = s;
+  const marker = new Int32Array(n).fill(-1);
+  for (let p = 0; p < ns; p++) {
+    for (let q = rowPtr[p]; q < rowPtr[p + 1]; q++) marker[rowIdx[q]] = p;
+    for (let c = childStart[p]; c < childStart[p + 1]; c++) {
+      const s = children[c];
+      const below = rowPtr[s] + (superStart[s + 1] - superStart[s]);
+      if (below < rowPtr[s + 1] && rowIdx[below] >= superStart[p + 1]) bad(`supernode ${s} does not meet its parent`);
+      for (let q = below; q < rowPtr[s + 1]; q++) if (marker[rowIdx[q]] !== p) bad(`supernode ${s} rows outside its parent`);
+    }
+  }
+  for (let s = 0; s < ns; s++) {
+    if (superParent[s] === -1 && rowPtr[s + 1] - rowPtr[s] !== superStart[s + 1] - superStart[s]) bad(`root supernode ${s} rows`);
+  }
 }
 
 function checkTree(n: number, t: SeparatorTree): void {
