@@ -44,6 +44,8 @@ export class Factorization {
   private readonly workspace: WorkspacePrediction;
   private readonly cumulativeFlops: Float64Array;
   private readonly solveTmp: Float64Array;
+  /** Index workspaces of the multifrontal pass: every entry is written before it is read, so one set serves every refactor. */
+  private readonly frontWork: { cbOffset: Float64Array; local: Int32Array; rel: Int32Array; runEnd: Int32Array };
   private map: ScatterMap | null = null;
   private matrix: SparseMatrix | null = null;
   private normInf = 0;
@@ -65,6 +67,10 @@ export class Factorization {
     this.workspace = workspaceOf(input.structure, method, this.schedule);
     this.cumulativeFlops = flopsAlongOrder(input, this.schedule.order);
     this.solveTmp = new Float64Array(largestBelow(input.structure));
+    const st = input.structure;
+    this.frontWork = {
+      cbOffset: new Float64Array(st.supernodeCount), local: new Int32Array(st.n), rel: new Int32Array(st.n), runEnd: new Int32Array(st.n),
+    };
   }
 
   /** Figures of the last successful factorization. */
@@ -137,8 +143,8 @@ export class Factorization {
       st, kernels: this.kernels, method: this.method, order: this.schedule.order,
       childPtr: this.schedule.childPtr, children: this.schedule.children,
       stackBase: w.factorDoubles, scratch: w.factorDoubles + w.stackDoubles,
-      tiny: this.pivotTolerance * maxAbs(A),
-      cbOffset: new Float64Array(st.supernodeCount), local: new Int32Array(st.n), rel: new Int32Array(st.n), runEnd: new Int32Array(st.n),
+      tiny: this.method === "ldlt" ? this.pivotTolerance * maxAbs(A) : 0, // Cholesky stops on pivots <= 0 only
+      ...this.frontWork,
       between,
     });
     if (fail) throw this.pivotError(fail);
