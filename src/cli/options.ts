@@ -3,10 +3,10 @@
  * (strict), and the checks that turn bad values into UsageError messages.
  */
 import { parseArgs } from "node:util";
-import type { OrderingName } from "../solver/analyze.js";
+import { ORDERING_NAMES, type OrderingName } from "../ordering/index.js";
 import { UsageError } from "./io.js";
 
-export const ORDERINGS: readonly OrderingName[] = ["nested-dissection", "minimum-degree", "reverse-cuthill-mckee", "natural"];
+export const ORDERINGS: readonly OrderingName[] = ORDERING_NAMES;
 const ALIASES: Record<string, OrderingName> = { nd: "nested-dissection", md: "minimum-degree", rcm: "reverse-cuthill-mckee" };
 
 /** The short alias of an ordering (nd, md, rcm), or its full name when it has none. */

@@ -16,8 +16,14 @@ import { nestedDissection } from "./nested-dissection/index.js";
 import { reverseCuthillMcKee } from "./rcm.js";
 import type { OrderingResult, SeparatorTree } from "./types.js";
 
+/** Every named fill-reducing ordering. */
+export const ORDERING_NAMES = ["nested-dissection", "minimum-degree", "reverse-cuthill-mckee", "natural"] as const;
+
+/** Named fill-reducing orderings. */
+export type OrderingName = (typeof ORDERING_NAMES)[number];
+
 /** A named ordering or a caller's permutation (new → original). */
-export type OrderingChoice = "nested-dissection" | "minimum-degree" | "reverse-cuthill-mckee" | "natural" | Int32Array;
+export type OrderingChoice = OrderingName | Int32Array;
 
 /** Options of {@link computeOrdering}. */
 export interface OrderingOptions {

@@ -8,15 +8,16 @@ import { adjacencyGraph } from "../graph/adjacency.js";
 import type { SparseMatrix } from "../matrix/sparse.js";
 import { requireSquare, storageForm } from "../matrix/symmetric.js";
 import { predictWorkspace } from "../numeric/workspace.js";
-import { computeOrdering, DISSECTION_THRESHOLD, type OrderingChoice, type OrderingOptions } from "../ordering/index.js";
+import {
+  computeOrdering, DISSECTION_THRESHOLD, ORDERING_NAMES, type OrderingChoice, type OrderingName, type OrderingOptions,
+} from "../ordering/index.js";
 import type { Graph } from "../graph/types.js";
 import type { OrderingResult } from "../ordering/types.js";
 import { countFill, symbolicFactorization, type AmalgamationOptions } from "../symbolic/index.js";
 import { Analysis } from "./analysis.js";
 import { supernodeExtremes } from "./stats.js";
 
-/** Named fill-reducing orderings. */
-export type OrderingName = "nested-dissection" | "minimum-degree" | "reverse-cuthill-mckee" | "natural";
+export type { OrderingName } from "../ordering/index.js";
 
 /** Stage and fraction done, reported by long-running calls. */
 export interface Progress {
@@ -52,7 +53,7 @@ export interface AnalyzeOptions {
   signal?: AbortSignal;
 }
 
-const NAMES: readonly string[] = ["nested-dissection", "minimum-degree", "reverse-cuthill-mckee", "natural"];
+const NAMES: readonly string[] = ORDERING_NAMES;
 
 /** Order and analyse the pattern of the symmetric matrix A. */
 export function analyze(A: SparseMatrix, options: AnalyzeOptions = {}): Analysis {
