@@ -11,7 +11,7 @@ import { analyzeCommand } from "./analyze.js";
 import { demoCommand } from "./demo.js";
 import { generateCommand } from "./generate.js";
 import { HELP, MAIN_HELP } from "./help.js";
-import { FileError, processIO, UsageError, type CliIO } from "./io.js";
+import { processIO, UsageError, type CliIO } from "./io.js";
 import { parseCommand } from "./options.js";
 import { reportCommand } from "./report.js";
 import { solveCommand } from "./solve.js";
@@ -61,7 +61,7 @@ function reportError(io: CliIO, e: unknown, debug: boolean): number {
   else io.stderr(`septum: internal error: ${oneLine} (run again with --debug for the stack trace)\n`);
   if (usage && !debug) io.stderr("Try 'septum --help'.\n");
   if (debug && e instanceof Error && e.stack) io.stderr(`${e.stack}\n`);
-  return usage ? 2 : known || e instanceof FileError ? 1 : 70;
+  return usage ? 2 : known ? 1 : 70;
 }
 
 function invokedDirectly(): boolean {

@@ -158,7 +158,7 @@ export function writeMatrixMarket(matrix: SparseMatrix, options: MarketWriteOpti
   const field = options.field ?? "real";
   checkField(field);
   const symmetric = options.symmetric ?? false;
-  const a = symmetric ? lowerTriangleOf(matrix) : matrix;
+  const a = symmetric ? lowerTriangle(matrix) : matrix; // lowerTriangle checks squareness and symmetry
   const format = valueFormat(field, options.precision);
   const out = new ByteSink(a.nnz * (field === "pattern" ? 16 : 40) + 256);
   writeHeader(out, `coordinate ${field} ${symmetric ? "symmetric" : "general"}`, options.comment, `${a.nrows} ${a.ncols} ${a.nnz}`);
@@ -177,12 +177,6 @@ export function writeMatrixMarket(matrix: SparseMatrix, options: MarketWriteOpti
     }
   }
   return out.text();
-}
-
-/** The lower triangle of a square matrix in any symmetric storage form (checked by lowerTriangle). */
-function lowerTriangleOf(a: SparseMatrix): SparseMatrix {
-  if (a.nrows !== a.ncols) throw new InputError(`a symmetric file needs a square matrix, this one is ${a.nrows} × ${a.ncols}`);
-  return lowerTriangle(a);
 }
 
 /**

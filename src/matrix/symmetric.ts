@@ -37,7 +37,7 @@ export function storageForm(A: SparseMatrix): StorageForm {
  * as equal: assembly in different orders rounds differently, so a few ulps
  * are allowed (common practice).
  */
-export const SYMMETRY_TOLERANCE = 64 * Number.EPSILON;
+const SYMMETRY_TOLERANCE = 64 * Number.EPSILON;
 
 /**
  * The lower triangle (diagonal included) of a symmetric matrix stored in any
