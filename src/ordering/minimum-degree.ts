@@ -96,14 +96,11 @@ function setAsideDense(s: MdWorkspace, graph: Graph, threshold: number): Int32Ar
   const { n, offsets, neighbours } = graph;
   const { degree, weight, start, size } = s;
   let count = 0;
-  for (let j = 0; j < n; j++) degree[j] = offsets[j + 1] - offsets[j];
-  for (let j = 0; j < n; j++) if (offsets[j + 1] - offsets[j] > threshold) count++;
-  const dense = new Int32Array(count);
-  if (count === n) {
-    for (let j = 0; j < n; j++) dense[j] = j;
-    s.eliminated = n;
-    return dense;
+  for (let j = 0; j < n; j++) {
+    degree[j] = offsets[j + 1] - offsets[j];
+    if (degree[j] > threshold) count++;
   }
+  const dense = new Int32Array(count);
   count = 0;
   for (let j = 0; j < n; j++) {
     if (offsets[j + 1] - offsets[j] <= threshold) continue;

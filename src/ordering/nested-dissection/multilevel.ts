@@ -104,9 +104,9 @@ export function multilevelSeparator(g: WGraph, rng: Rng, o: BisectOptions, work:
   if (o.separatorRefinement === "finest" || o.separatorRefinement === "none") {
     return separate(g, uncoarsenBisection(g, levels, start, o, work).label, o, work, true);
   }
+  if (o.separatorRefinement === "all" || g.n < o.bothAbove) return separatorByLevels(g, levels, start, o, work);
   const copy: Bisection = { label: start.label.slice(), weight: [start.weight[0], start.weight[1]], cut: start.cut };
   const a = separatorByLevels(g, levels, start, o, work);
-  if (o.separatorRefinement === "all" || g.n < o.bothAbove) return a;
   return lighter(g, a, separate(g, uncoarsenBisection(g, levels, copy, o, work).label, o, work, true));
 }
 
