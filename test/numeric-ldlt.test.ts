@@ -75,6 +75,6 @@ describe("L·D·Lᵀ on SPD matrices agrees with Cholesky", () => {
       expect(denseBackwardError(dense(A), X.subarray(c * n, (c + 1) * n), B.subarray(c * n, (c + 1) * n))).toBeLessThan(10 * n * EPS);
     }
     expect(L.stats.method).toBe("ldlt");
-    expect(L.stats.peakBytes).toBeGreaterThan(C.stats.peakBytes - 1); // ldlt adds a scratch block
+    expect(L.stats.peakBytes).toBeGreaterThan(C.stats.peakBytes); // ldlt adds a scratch block
   });
 });

@@ -32,14 +32,9 @@ export function expectPermutation(perm: Int32Array, n: number): void {
 
 /** Graph built by a callback that adds undirected edges (self loops dropped). */
 export function graphOf(n: number, add: (edge: (a: number, b: number) => void) => void): Graph {
-  const sets: Set<number>[] = Array.from({ length: n }, () => new Set<number>());
-  add((a, b) => { if (a !== b) { sets[a].add(b); sets[b].add(a); } });
-  const offsets = new Int32Array(n + 1);
-  let total = 0;
-  for (let v = 0; v < n; v++) { total += sets[v].size; offsets[v + 1] = total; }
-  const neighbours = new Int32Array(total);
-  for (let v = 0; v < n; v++) neighbours.set([...sets[v]].sort((x, y) => x - y), offsets[v]);
-  return { n, offsets, neighbours };
+  const edges: Array<[number, number]> = [];
+  add((a, b) => { edges.push([a, b]); });
+  return graphFromEdges(n, edges);
 }
 
 /** nnz(L) incl. diagonal by brute-force symbolic elimination in the given order (the definition; Rose 1972 graph model). */
