@@ -9,16 +9,18 @@ export function median(xs) {
   return s.length % 2 ? s[m] : (s[m - 1] + s[m]) / 2;
 }
 
-/** Run fn `runs` times, return { seconds (median), result (last) }. */
-export function timed(fn, runs = 3) {
-  const times = [];
+/** Run fn `runs` times; medians of wall and process-CPU seconds, and the last result. */
+export function measure(fn, runs = 3) {
+  const wall = [], cpu = [];
   let result;
   for (let r = 0; r < runs; r++) {
-    const t0 = performance.now();
+    const c0 = process.cpuUsage(), t0 = performance.now();
     result = fn();
-    times.push((performance.now() - t0) / 1000);
+    const c = process.cpuUsage(c0);
+    wall.push((performance.now() - t0) / 1000);
+    cpu.push((c.user + c.system) / 1e6);
   }
-  return { seconds: median(times), result };
+  return { wall: median(wall), cpu: median(cpu), result };
 }
 
 /** 5-point Laplacian on a k×k grid, lower triangle. */

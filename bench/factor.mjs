@@ -12,7 +12,7 @@
 // is shared, so only back-to-back figures compare). Then the speed-up over
 // ml-matrix's dense Cholesky at n = 2500, and our own dense POTRF beside it.
 import { CholeskyDecomposition, Matrix } from "ml-matrix";
-import { analyze, jsKernels, getKernels } from "../dist/index.js";
+import { analyze, getKernels } from "../dist/index.js";
 import { grid2d, grid3d, median } from "./common.mjs";
 
 const RUNS = Number(process.env.RUNS ?? 3);
@@ -25,7 +25,7 @@ const mib = (b) => `${fmt(b / 2 ** 20, 1)} MiB`;
 
 /** GF/s of the kernel set's lower GEMM (SYRK) C −= A·Aᵀ, 256×256×256, median of `reps` after 3 warm-ups. */
 function kernelRate(reps = 9) {
-  const K = KERNELS === "js" ? jsKernels() : getKernels(KERNELS);
+  const K = getKernels(KERNELS);
   const n = 256, S = K.reserve(2 * n * n);
   for (let i = 0; i < S.length; i++) S[i] = Math.sin(i);
   const t = [];
@@ -80,7 +80,7 @@ function benchDense() {
     t.push(now() - t0);
   }
   // The same dense matrix through our own blocked POTRF (dense against dense).
-  const K = KERNELS === "js" ? jsKernels() : getKernels(KERNELS);
+  const K = getKernels(KERNELS);
   const S = K.reserve(n * n), tp = [];
   for (let r = 0; r < Math.min(RUNS, 3); r++) {
     for (let j = 0; j < n; j++) for (let i = 0; i < n; i++) S[i + j * n] = M.get(i, j);

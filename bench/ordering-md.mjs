@@ -6,7 +6,7 @@
 // analyze() with the permutation handed in.
 // Run: npm run build && node bench/ordering-md.mjs [runs]
 import { SparseMatrix, adjacencyGraph, analyze, minimumDegree, reverseCuthillMcKee } from "../dist/index.js";
-import { grid2d, grid3d, median, table } from "./common.mjs";
+import { grid2d, grid3d, measure, table } from "./common.mjs";
 
 const runs = Number(process.argv[2] ?? 3);
 
@@ -24,20 +24,6 @@ function grid9(k) {
   return SparseMatrix.fromTriplets(k * k, k * k, Int32Array.from(r), Int32Array.from(c), Float64Array.from(v));
 }
 
-function measure(fn) {
-  const wall = [], cpu = [];
-  let result;
-  for (let r = 0; r < runs; r++) {
-    const c0 = process.cpuUsage();
-    const t0 = performance.now();
-    result = fn();
-    wall.push((performance.now() - t0) / 1000);
-    const c = process.cpuUsage(c0);
-    cpu.push((c.user + c.system) / 1e6);
-  }
-  return { wall: median(wall), cpu: median(cpu), result };
-}
-
 const rows = [];
 const problems = [
   ["2-D 5-pt 300²", () => grid2d(300)],
@@ -49,7 +35,7 @@ for (const [label, make] of problems) {
   const A = make();
   const g = adjacencyGraph(A);
   for (const [name, order] of [["minimum degree", minimumDegree], ["reverse Cuthill-McKee", reverseCuthillMcKee]]) {
-    const m = measure(() => order(g));
+    const m = measure(() => order(g), runs);
     const s = analyze(A, { ordering: m.result }).stats;
     rows.push({ problem: label, ordering: name, n: s.n, nnzL: s.nnzL, flops: s.flops, "wall s": m.wall, "cpu s": m.cpu });
   }

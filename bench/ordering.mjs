@@ -12,7 +12,7 @@
 //   RUNS=3 node bench/ordering.mjs grid2-300 grid3-40   # a selection
 //   ONLY=minimum-degree,nested-dissection RUNS=3 node bench/ordering.mjs grid2-1000   # some orderings only
 import { SparseMatrix, adjacencyGraph, analyze, computeOrdering } from "../dist/index.js";
-import { median } from "./common.mjs";
+import { measure } from "./common.mjs";
 
 const RUNS = Number(process.env.RUNS ?? 1);
 const SEED = Number(process.env.SEED ?? 1);
@@ -144,19 +144,6 @@ const problems = {
 /** Orderings whose factor fits comfortably: natural and RCM only up to this many unknowns. */
 const BANDED_LIMIT = 100000;
 
-function measure(graph, options) {
-  const wall = [], cpu = [];
-  let result;
-  for (let r = 0; r < RUNS; r++) {
-    const c0 = process.cpuUsage(), t0 = performance.now();
-    result = computeOrdering(graph, options);
-    const c = process.cpuUsage(c0);
-    wall.push((performance.now() - t0) / 1000);
-    cpu.push((c.user + c.system) / 1e6);
-  }
-  return { permutation: result.permutation, wall: median(wall), cpu: median(cpu) };
-}
-
 const selected = process.argv.slice(2).length ? process.argv.slice(2) : Object.keys(problems);
 const rows = [];
 for (const name of selected) {
@@ -171,8 +158,8 @@ for (const name of selected) {
   let mdFlops = NaN;
   for (const [label, options] of runs) {
     if (ONLY && !ONLY.has(label)) continue;
-    const m = measure(graph, options);
-    const stats = analyze(A, { ordering: m.permutation, amalgamation: false }).stats;
+    const m = measure(() => computeOrdering(graph, options), RUNS);
+    const stats = analyze(A, { ordering: m.result.permutation, amalgamation: false }).stats;
     if (label === "minimum-degree") mdFlops = stats.flops;
     const row = {
       problem: name, n: A.ncols, ordering: label, nnzL: stats.nnzL.toExponential(3), flops: stats.flops.toExponential(3),
