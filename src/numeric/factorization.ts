@@ -169,9 +169,7 @@ export class Factorization {
   solve(b: Float64Array | number[], options: SolveOptions = {}): Float64Array {
     this.usable();
     if (options.refine) return this.solveWithInfo(b, options).x;
-    const x = Float64Array.from(b);
-    this.checkRhs(x);
-    return this.solveInPlace(x);
+    return this.solveInPlace(Float64Array.from(b)); // solveInPlace checks the right-hand side
   }
 
   /** Solve A·x = b overwriting b (length n or n×k column-major) with x; returns b. */
