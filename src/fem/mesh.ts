@@ -136,6 +136,7 @@ function cutTriangles(spec: PlateSpec, g: Grid, nx: number, ny: number): Triangl
     else tris.push(poly[0], poly[1], poly[3], poly[1], poly[2], poly[3]);
   };
   const handle = (a: number, b: number, c: number): void => {
+    if (sign(a) > 0 && sign(b) > 0 && sign(c) > 0) { tris.push(a, b, c); return; } // the common case, without the arrays below
     const v = [a, b, c];
     const s = [sign(a), sign(b), sign(c)];
     const neg = s.filter((q) => q < 0).length;
