@@ -9,39 +9,17 @@
  */
 import { describe, expect, it } from "vitest";
 import {
-  analyze, elasticity3d, geometricLaplacian, grid2d, grid3d, plateMesh2d, saddle2d,
-  SparseMatrix, symmetricMultiply, symmetricNormInf, type OrderingName,
+  analyze, elasticity3d, geometricLaplacian, grid2d, grid3d, plateMesh2d, saddle2d, SparseMatrix, type OrderingName,
 } from "../src/index.js";
+import { backwardError, blockDiagonal } from "./numeric-support.js";
 
 const ORDERINGS: OrderingName[] = ["nested-dissection", "minimum-degree", "reverse-cuthill-mckee", "natural"];
 
-function backwardError(A: SparseMatrix, x: Float64Array, b: Float64Array): number {
-  const r = symmetricMultiply(A, x);
-  let rn = 0, xn = 0, bn = 0;
-  for (let i = 0; i < b.length; i++) {
-    rn = Math.max(rn, Math.abs(b[i] - r[i]));
-    xn = Math.max(xn, Math.abs(x[i]));
-    bn = Math.max(bn, Math.abs(b[i]));
-  }
-  return rn / (symmetricNormInf(A) * xn + bn);
-}
 
 function rhs(n: number): Float64Array {
   return Float64Array.from({ length: n }, (_, i) => Math.cos(0.37 * i) + 0.5);
 }
 
-/** Block-diagonal union of matrices (disconnected pieces), lower storage kept as given. */
-function blockDiagonal(parts: SparseMatrix[]): SparseMatrix {
-  const r: number[] = [], c: number[] = [], v: number[] = [];
-  let off = 0;
-  for (const P of parts) {
-    for (let j = 0; j < P.ncols; j++) for (let p = P.colPtr[j]; p < P.colPtr[j + 1]; p++) {
-      r.push(P.rowIdx[p] + off); c.push(j + off); v.push(P.values[p]);
-    }
-    off += P.ncols;
-  }
-  return SparseMatrix.fromTriplets(off, off, r, c, v);
-}
 
 /** 2-D 5-point operator with coefficients jumping between 1e-6 and 1e6 in a checkerboard of blocks. */
 function highContrast(k: number): SparseMatrix {

@@ -139,3 +139,32 @@ export function denseBackwardError(M: Matrix, x: ArrayLike<number>, b: ArrayLike
   }
   return rn / (an * xn + bn);
 }
+
+/** η = ‖b − A·x‖∞ / (‖A‖∞‖x‖∞ + ‖b‖∞) for a lower-stored symmetric A, computed entry by entry. */
+export function backwardError(A: SparseMatrix, x: Float64Array, b: Float64Array): number {
+  const n = A.ncols, ax = new Float64Array(n), rowAbs = new Float64Array(n);
+  for (let j = 0; j < n; j++) for (let p = A.colPtr[j]; p < A.colPtr[j + 1]; p++) {
+    const i = A.rowIdx[p], v = A.values[p];
+    ax[i] += v * x[j]; rowAbs[i] += Math.abs(v);
+    if (i !== j) { ax[j] += v * x[i]; rowAbs[j] += Math.abs(v); }
+  }
+  let r = 0, xn = 0, bn = 0, an = 0;
+  for (let i = 0; i < n; i++) {
+    r = Math.max(r, Math.abs(b[i] - ax[i])); xn = Math.max(xn, Math.abs(x[i]));
+    bn = Math.max(bn, Math.abs(b[i])); an = Math.max(an, rowAbs[i]);
+  }
+  return r / (an * xn + bn);
+}
+
+/** Block diagonal of lower-stored matrices (disconnected pieces). */
+export function blockDiagonal(parts: SparseMatrix[]): SparseMatrix {
+  const r: number[] = [], c: number[] = [], v: number[] = [];
+  let off = 0;
+  for (const P of parts) {
+    for (let j = 0; j < P.ncols; j++) for (let p = P.colPtr[j]; p < P.colPtr[j + 1]; p++) {
+      r.push(off + P.rowIdx[p]); c.push(off + j); v.push(P.values[p]);
+    }
+    off += P.ncols;
+  }
+  return SparseMatrix.fromTriplets(off, off, r, c, v);
+}
