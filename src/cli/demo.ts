@@ -14,7 +14,7 @@ import { meshPlate } from "../fem/mesh.js";
 import { assembleP1, heatBalance, expandSolution, lowerMatrix, unknownCoordinates, type P1Problem, type Triplets } from "../fem/p1.js";
 import { fieldSvg } from "../report/field.js";
 import { renderReport } from "../report/page.js";
-import { ORDERINGS, numberOption, type Parsed } from "./options.js";
+import { ORDERINGS, numberOption, shortOrderingName, type Parsed } from "./options.js";
 import { progressLine, type ProgressLine } from "./progress.js";
 import { progressCallback } from "./pipeline.js";
 import { writeText } from "./files.js";
@@ -60,7 +60,7 @@ function solveEveryWay(io: CliIO, A: SparseMatrix, b: Float64Array, coordinates:
   const list: Analysed[] = [], factorSeconds: number[] = [];
   let x: Float64Array = new Float64Array(0);
   for (const ordering of ORDERINGS) {
-    const label = ordering.split("-")[0];
+    const label = `${shortOrderingName(ordering)}:`;
     const ta = io.now();
     const analysis = analyze(A, { ordering, coordinates, onProgress: progressCallback(line, `${label} `) });
     const tb = io.now();

@@ -31,7 +31,7 @@ export function loadSymmetric(io: CliIO, path: string): SparseMatrix {
   }
 }
 
-/** Analyze with one ordering, with the file named on failure. */
+/** Analyze with one ordering, progress reported on the line with the given prefix. */
 export function analyzeWith(A: SparseMatrix, ordering: OrderingName, seed: number, line: ProgressLine, prefix = ""): Analysis {
   return analyze(A, { ordering, seed, onProgress: progressCallback(line, prefix) });
 }
