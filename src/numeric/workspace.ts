@@ -7,6 +7,7 @@
  * out-of-core multifrontal method for sparse factorization", ACM TOMS 12(3):
  * decreasing peak(c) − cb(c)).
  */
+import { childLists } from "../symbolic/etree.js";
 import type { SupernodalStructure } from "../symbolic/types.js";
 import type { FactorMethod } from "./types.js";
 
@@ -41,11 +42,7 @@ export function contributionSize(st: SupernodalStructure, s: number): number {
 export function stackSchedule(st: SupernodalStructure): StackSchedule {
   const ns = st.supernodeCount, parent = st.superParent;
   const peak = new Float64Array(ns), cb = new Float64Array(ns);
-  const childPtr = new Int32Array(ns + 1);
-  for (let s = 0; s < ns; s++) if (parent[s] >= 0) childPtr[parent[s] + 1]++;
-  for (let s = 0; s < ns; s++) childPtr[s + 1] += childPtr[s];
-  const children = new Int32Array(Math.max(0, childPtr[ns])), fill = childPtr.slice(0, ns);
-  for (let s = 0; s < ns; s++) if (parent[s] >= 0) children[fill[parent[s]]++] = s;
+  const { childPtr, children } = childLists(parent);
   for (let s = 0; s < ns; s++) {
     // Children precede parents (postorder), so their peaks are known.
     cb[s] = contributionSize(st, s);

@@ -7,6 +7,7 @@
  * never a malformed Analysis.
  */
 import { FormatError } from "../errors.js";
+import { childLists } from "../symbolic/etree.js";
 import type { SeparatorTree } from "../ordering/types.js";
 import type { AnalysisParts } from "./analysis.js";
 import type { AnalysisStats } from "./stats.js";
@@ -196,12 +197,7 @@ function checkNesting(
   n: number, ns: number, superStart: Int32Array, superParent: Int32Array, rowPtr: Int32Array, rowIdx: Int32Array,
   bad: (why: string) => never,
 ): void {
-  const childStart = new Int32Array(ns + 1);
-  for (let s = 0; s < ns; s++) if (superParent[s] >= 0) childStart[superParent[s] + 1]++;
-  for (let p = 0; p < ns; p++) childStart[p + 1] += childStart[p];
-  const fill = childStart.slice(0, ns);
-  const children = new Int32Array(childStart[ns]);
-  for (let s = 0; s < ns; s++) if (superParent[s] >= 0) children[fill[superParent[s]]++] = s;
+  const { childPtr: childStart, children } = childLists(superParent);
   const marker = new Int32Array(n).fill(-1);
   for (let p = 0; p < ns; p++) {
     for (let q = rowPtr[p]; q < rowPtr[p + 1]; q++) marker[rowIdx[q]] = p;

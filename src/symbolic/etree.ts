@@ -32,6 +32,17 @@ export function eliminationTree(g: Graph, permutation: Int32Array, inverse: Int3
   return parent;
 }
 
+/** The children of every node of a forest, ascending: node s's are children[childPtr[s] .. childPtr[s+1]). */
+export function childLists(parent: Int32Array): { childPtr: Int32Array; children: Int32Array } {
+  const n = parent.length;
+  const childPtr = new Int32Array(n + 1);
+  for (let s = 0; s < n; s++) if (parent[s] >= 0) childPtr[parent[s] + 1]++;
+  for (let s = 0; s < n; s++) childPtr[s + 1] += childPtr[s];
+  const children = new Int32Array(childPtr[n]), fill = childPtr.slice(0, n);
+  for (let s = 0; s < n; s++) if (parent[s] >= 0) children[fill[parent[s]]++] = s;
+  return { childPtr, children };
+}
+
 /**
  * A postorder of the forest: order[t] is the node visited t-th. Children are
  * visited in increasing index order, so a forest already in postorder maps to

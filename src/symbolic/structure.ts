@@ -5,6 +5,7 @@
  * Appl. 11(1)). One marker array; each list is sorted once.
  */
 import type { Graph } from "../graph/types.js";
+import { childLists } from "./etree.js";
 import type { SupernodalStructure } from "./types.js";
 
 /**
@@ -24,9 +25,7 @@ export function buildStructure(
   const factorPtr = new Float64Array(ns + 1);
   const columnSupernode = new Int32Array(n);
   const mark = new Int32Array(n).fill(-1);
-  // Children lists (postorder: every child precedes its parent).
-  const head = new Int32Array(ns).fill(-1), next = new Int32Array(ns).fill(-1);
-  for (let s = ns - 1; s >= 0; s--) if (parent[s] !== -1) { next[s] = head[parent[s]]; head[parent[s]] = s; }
+  const { childPtr, children } = childLists(parent); // postorder: every child precedes its parent
   for (let s = 0; s < ns; s++) {
     const f = start[s], l = start[s + 1] - 1, base = rowPtr[s];
     let q = base;
@@ -38,7 +37,8 @@ export function buildStructure(
         if (i > l && mark[i] !== s) { mark[i] = s; q = push(rowIdx, q, rowPtr[s + 1], i, s); }
       }
     }
-    for (let c = head[s]; c !== -1; c = next[c]) {
+    for (let k = childPtr[s]; k < childPtr[s + 1]; k++) {
+      const c = children[k];
       for (let p = rowPtr[c] + (start[c + 1] - start[c]); p < rowPtr[c + 1]; p++) {
         const i = rowIdx[p];
         if (i > l && mark[i] !== s) { mark[i] = s; q = push(rowIdx, q, rowPtr[s + 1], i, s); }
