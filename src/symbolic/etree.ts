@@ -32,6 +32,13 @@ export function eliminationTree(g: Graph, permutation: Int32Array, inverse: Int3
   return parent;
 }
 
+/** Invert a permutation (assumed valid). */
+export function invertPermutation(p: Int32Array): Int32Array {
+  const inv = new Int32Array(p.length);
+  for (let k = 0; k < p.length; k++) inv[p[k]] = k;
+  return inv;
+}
+
 /** The children of every node of a forest, ascending: node s's are children[childPtr[s] .. childPtr[s+1]). */
 export function childLists(parent: Int32Array): { childPtr: Int32Array; children: Int32Array } {
   const n = parent.length;

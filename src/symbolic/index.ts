@@ -8,7 +8,7 @@
  * exactly that of the ordering.
  */
 import type { Graph } from "../graph/types.js";
-import { eliminationTree, postorder } from "./etree.js";
+import { eliminationTree, invertPermutation, postorder } from "./etree.js";
 import { columnCounts } from "./column-counts.js";
 import { supernodePartition, type AmalgamationOptions } from "./supernodes.js";
 import { buildStructure } from "./structure.js";
@@ -36,12 +36,7 @@ export interface SymbolicResult {
   readonly flops: number;
 }
 
-/** Invert a permutation (assumed valid). */
-export function invertPermutation(p: Int32Array): Int32Array {
-  const inv = new Int32Array(p.length);
-  for (let k = 0; k < p.length; k++) inv[p[k]] = k;
-  return inv;
-}
+export { invertPermutation } from "./etree.js";
 
 /** Elimination tree, a postorder of it and the column counts, for a valid permutation. */
 function treeAndCounts(g: Graph, permutation: Int32Array) {

@@ -11,7 +11,7 @@
  * a new column order (still a topological order of the elimination tree, so
  * the fill is unchanged) in which every merged supernode is contiguous.
  */
-import { postorder } from "./etree.js";
+import { invertPermutation, postorder } from "./etree.js";
 
 /** Bounds for relaxed amalgamation. */
 export interface AmalgamationOptions {
@@ -128,8 +128,7 @@ function mergedPostorder(n: number, fstart: Int32Array, sparent: Int32Array, nro
     grows[g] = nrows[s];
   }
   const gorder = postorder(gparent);
-  const gpos = new Int32Array(ng);
-  for (let t = 0; t < ng; t++) gpos[gorder[t]] = t;
+  const gpos = invertPermutation(gorder);
   // Count columns per group position, then place columns stably.
   const start = new Int32Array(ng + 1);
   for (let s = 0; s < ns; s++) start[gpos[groupIndex[rep[s]]] + 1] += fstart[s + 1] - fstart[s];
