@@ -29,6 +29,9 @@ function ldltUnblocked(S: Float64Array, n: number, a: number, lda: number, tiny:
   return -1;
 }
 
+/** Reciprocals of the pivots of the current scaled update, grown on demand. */
+let reciprocals = new Float64Array(64);
+
 /** C[i, j] −= Σ_p W[i, p]·W[j, p] / d_p for one entry (edges of the scaled update). */
 function scaledEntry(S: Float64Array, k: number, w: number, ldw: number, dg: number, i: number, j: number): number {
   let s = 0;
@@ -43,13 +46,16 @@ function scaledEntry(S: Float64Array, k: number, w: number, ldw: number, dg: num
 function scaledUpdate(
   S: Float64Array, m: number, k: number, w: number, ldw: number, dg: number, c: number, ldc: number,
 ): void {
+  if (reciprocals.length < k) reciprocals = new Float64Array(k);
+  const R = reciprocals;
+  for (let p = 0; p < k; p++) R[p] = 1 / S[dg + p * (ldw + 1)]; // once per call, not once per 4×4 tile
   const m4 = m & ~3;
   for (let j = 0; j < m4; j += 4) {
     for (let i = j; i < m4; i += 4) {
       let c00 = 0, c10 = 0, c20 = 0, c30 = 0, c01 = 0, c11 = 0, c21 = 0, c31 = 0;
       let c02 = 0, c12 = 0, c22 = 0, c32 = 0, c03 = 0, c13 = 0, c23 = 0, c33 = 0;
-      for (let p = 0, pa = w + i, pb = w + j, pd = dg; p < k; p++, pa += ldw, pb += ldw, pd += ldw + 1) {
-        const r = 1 / S[pd];
+      for (let p = 0, pa = w + i, pb = w + j; p < k; p++, pa += ldw, pb += ldw) {
+        const r = R[p];
         const a0 = S[pa] * r, a1 = S[pa + 1] * r, a2 = S[pa + 2] * r, a3 = S[pa + 3] * r;
         const b0 = S[pb], b1 = S[pb + 1], b2 = S[pb + 2], b3 = S[pb + 3];
         c00 += a0 * b0; c10 += a1 * b0; c20 += a2 * b0; c30 += a3 * b0;
