@@ -42,7 +42,7 @@ export type {
 } from "./matrix/market.js";
 export { minimumDegree, type MinimumDegreeOptions } from "./ordering/minimum-degree.js";
 export { reverseCuthillMcKee } from "./ordering/rcm.js";
-export { computeOrdering, type OrderingOptions, type OrderingChoice } from "./ordering/index.js";
+export { computeOrdering, ORDERING_NAMES, type OrderingOptions, type OrderingChoice } from "./ordering/index.js";
 export { grid2d, grid3d, type ModelProblem } from "./generate/grids.js";
 export { elasticity3d } from "./generate/elasticity.js";
 export { plateMesh2d } from "./generate/plate.js";
