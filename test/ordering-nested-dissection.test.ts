@@ -1,7 +1,7 @@
 import fc from "fast-check";
 import { describe, expect, it } from "vitest";
 import type { Graph } from "../src/graph/types.js";
-import { expectPermutation, graphOf } from "./helpers/graphs.js";
+import { expectPermutation, expectTreeConsistent, graphOf } from "./helpers/graphs.js";
 import { coordinateCut, validateCoordinates } from "../src/ordering/coordinates.js";
 import { minimumDegree } from "../src/ordering/minimum-degree.js";
 import { Int32Arena } from "../src/ordering/nested-dissection/arena.js";
@@ -9,7 +9,6 @@ import { nestedDissection } from "../src/ordering/nested-dissection/index.js";
 import { coverWork, SEPARATOR, vertexSeparatorFromCut } from "../src/ordering/nested-dissection/separator.js";
 import { evaluate, fmWork } from "../src/ordering/nested-dissection/refine.js";
 import { inducedSubgraph, weightedGraph } from "../src/ordering/nested-dissection/wgraph.js";
-import type { SeparatorTree } from "../src/ordering/types.js";
 import { countFill } from "../src/symbolic/index.js";
 
 // ---------- graphs ----------
@@ -36,51 +35,6 @@ const clique = (n: number) => graphOf(n, (e) => { for (let i = 0; i < n; i++) fo
 // ---------- checks ----------
 const leafOrder = (g: Graph) => minimumDegree(g);
 const nd = (g: Graph, seed = 1, leafSize?: number) => nestedDissection(g, { orderLeaf: leafOrder, seed, leafSize });
-
-/**
- * Separator tree: node ranges nest, children partition [first, separatorFirst)
- * of their parent, roots partition 0..n, and no edge of the graph joins two
- * different child subtrees of a node (so the separator really separates).
- * Returns a description of the first violation, or "" (plain loops: cheap on large graphs).
- */
-function treeProblem(g: Graph, perm: Int32Array, t: SeparatorTree): string {
-  const n = g.n;
-  const pos = new Int32Array(n);
-  for (let k = 0; k < n; k++) pos[perm[k]] = k;
-  const childRanges: Array<Array<[number, number]>> = Array.from({ length: t.count }, () => []);
-  const roots: Array<[number, number]> = [];
-  for (let i = 0; i < t.count; i++) {
-    if (!(t.first[i] <= t.separatorFirst[i] && t.separatorFirst[i] <= t.end[i])) return `node ${i}: ranges out of order`;
-    if (t.parent[i] === -1) roots.push([t.first[i], t.end[i]]);
-    else if (t.parent[i] <= i) return `node ${i}: parent listed before child`;
-    else childRanges[t.parent[i]].push([t.first[i], t.end[i]]);
-  }
-  const tiles = (ranges: Array<[number, number]>, lo: number, hi: number): boolean => {
-    ranges.sort((a, b) => a[0] - b[0]);
-    let at = lo;
-    for (const [a, b] of ranges) { if (a !== at) return false; at = b; }
-    return at === hi;
-  };
-  if (!tiles(roots, 0, n)) return "roots do not partition 0..n";
-  const owner = new Int32Array(n).fill(-1);
-  for (let i = 0; i < t.count; i++) {
-    if (childRanges[i].length === 0) continue;
-    if (!tiles(childRanges[i], t.first[i], t.separatorFirst[i])) return `node ${i}: children do not partition its range`;
-    childRanges[i].forEach(([a, b], c) => { for (let k = a; k < b; k++) owner[k] = c; });
-    for (let k = t.first[i]; k < t.separatorFirst[i]; k++) {
-      const v = perm[k];
-      for (let p = g.offsets[v]; p < g.offsets[v + 1]; p++) {
-        const q = pos[g.neighbours[p]];
-        if (q >= t.first[i] && q < t.separatorFirst[i] && owner[q] !== owner[k]) return `node ${i}: edge ${v}-${g.neighbours[p]} crosses its separator`;
-      }
-    }
-  }
-  return "";
-}
-
-function expectTreeConsistent(g: Graph, perm: Int32Array, t: SeparatorTree): void {
-  expect(treeProblem(g, perm, t)).toBe("");
-}
 
 /** nnz(L) and flops Σ c_j² from the symbolic module's column counts. */
 function factorStats(g: Graph, perm: Int32Array): { nnz: number; flops: number } {
