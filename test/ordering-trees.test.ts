@@ -1,0 +1,129 @@
+/**
+ * Nested dissection on trees and on graphs with trees hanging from them.
+ * A tree has an elimination order without fill — eliminate every vertex after
+ * its children (Parter 1961, "The use of linear graphs in Gauss elimination",
+ * SIAM Review 3(2); from memory) — so nnz(L) of a tree with n vertices is
+ * exactly n + (n − 1). Dissection must reach it; and a hair hanging from a
+ * mesh is never part of a separator (it separates nothing).
+ */
+import fc from "fast-check";
+import { describe, expect, it } from "vitest";
+import { computeOrdering } from "../src/ordering/index.js";
+import { minimumDegree } from "../src/ordering/minimum-degree.js";
+import { peelHairs } from "../src/ordering/nested-dissection/hairs.js";
+import { nestedDissection } from "../src/ordering/nested-dissection/index.js";
+import { weightedGraph } from "../src/ordering/nested-dissection/wgraph.js";
+import { invertPermutation } from "../src/symbolic/etree.js";
+import { countFill } from "../src/symbolic/index.js";
+import { expectPermutation, expectTreeConsistent, graphOf } from "./helpers/graphs.js";
+
+/** Uniform-ish random tree: vertex i > 0 hangs from a random earlier vertex. */
+const randomTree = fc.integer({ min: 1, max: 3000 }).chain((n) => fc.tuple(
+  fc.constant(n), fc.array(fc.double({ min: 0, max: 1, maxExcluded: true, noNaN: true }), { minLength: n, maxLength: n })));
+
+const nd = (g: ReturnType<typeof graphOf>, seed = 1) => nestedDissection(g, { orderLeaf: (l) => minimumDegree(l), seed, leafSize: 64 });
+
+describe("nested dissection on trees", () => {
+  it("orders random trees and forests with no fill (property; zero fill of trees, Parter 1961)", () => {
+    fc.assert(fc.property(randomTree, fc.integer({ min: 1, max: 4 }), ([n, u], parts) => {
+      // `parts` components: vertex i starts a new tree when i % ceil(n / parts) === 0
+      const span = Math.ceil(n / parts);
+      const g = graphOf(n, (e) => { for (let i = 1; i < n; i++) if (i % span !== 0) e(i, (i - (i % span)) + Math.floor(u[i] * (i % span))); });
+      const r = nd(g);
+      expectPermutation(r.permutation, n);
+      expectTreeConsistent(g, r.permutation, r.separatorTree!);
+      const edges = g.neighbours.length / 2;
+      expect(countFill(g, r.permutation).nnzL).toBe(n + edges);
+    }), { numRuns: 60 });
+  });
+
+  it("a path of 200,000 vertices: nnz(L) = 2n − 1 through the public ordering entry", () => {
+    const n = 200_000;
+    const g = graphOf(n, (e) => { for (let i = 1; i < n; i++) e(i - 1, i); });
+    const r = computeOrdering(g, { ordering: "nested-dissection" });
+    expectPermutation(r.permutation, n);
+    expect(countFill(g, r.permutation).nnzL).toBe(2 * n - 1);
+  });
+});
+
+describe("nested dissection with hairs", () => {
+  it("peeling finds the 2-core and the core vertex each hair hangs from (property, against repeated deletion)", () => {
+    const cycleWithTrees = fc.integer({ min: 3, max: 40 }).chain((c) => fc.tuple(
+      fc.constant(c), fc.array(fc.tuple(fc.nat(1000), fc.nat(1000)), { maxLength: 80 }), fc.array(fc.tuple(fc.nat(1000), fc.nat(1000)), { maxLength: 10 })));
+    fc.assert(fc.property(cycleWithTrees, ([c, hang, chords]) => {
+      // a cycle of c vertices, hair vertex c + h hanging from an earlier vertex, a few chords among the cycle
+      const n = c + hang.length;
+      const g = graphOf(n, (e) => {
+        for (let i = 0; i < c; i++) e(i, (i + 1) % c);
+        hang.forEach(([a], h) => e(c + h, a % (c + h)));
+        for (const [a, b] of chords) e(a % c, b % c);
+      });
+      // reference: delete vertices of degree one until none is left (the definition of the 2-core)
+      const alive = new Uint8Array(n).fill(1);
+      const degreeOf = (v: number) => { let d = 0; for (let p = g.offsets[v]; p < g.offsets[v + 1]; p++) d += alive[g.neighbours[p]]; return d; };
+      for (let changed = true; changed;) {
+        changed = false;
+        for (let v = 0; v < n; v++) if (alive[v] && degreeOf(v) <= 1) { alive[v] = 0; changed = true; }
+      }
+      const hairs = peelHairs(weightedGraph(g));
+      if (hang.length === 0) { expect(hairs).toBeNull(); return; }
+      expect(hairs).not.toBeNull();
+      expect(Array.from(hairs!.core)).toEqual(Array.from({ length: n }, (_, v) => v).filter((v) => alive[v]));
+      for (let v = 0; v < n; v++) {
+        // the core vertex reached from v without passing through another core vertex (unique for a hair)
+        let at = v;
+        const seen = new Set([v]);
+        while (!alive[at]) {
+          const nb = Array.from(g.neighbours.subarray(g.offsets[at], g.offsets[at + 1])).filter((u) => !seen.has(u));
+          const towardCore = nb.find((u) => alive[u]) ?? nb.find((u) => reachesCore(u, at));
+          at = towardCore!;
+          seen.add(at);
+        }
+        expect(hairs!.root[v]).toBe(at);
+      }
+      function reachesCore(u: number, from: number): boolean {
+        const stack = [u];
+        const visited = new Set([from, u]);
+        while (stack.length) {
+          const x = stack.pop()!;
+          if (alive[x]) return true;
+          for (let p = g.offsets[x]; p < g.offsets[x + 1]; p++) if (!visited.has(g.neighbours[p])) { visited.add(g.neighbours[p]); stack.push(g.neighbours[p]); }
+        }
+        return false;
+      }
+    }), { numRuns: 200 });
+  });
+
+  it("hairs hanging from a grid stay out of every separator, and the tree stays consistent (seeds 1–3)", () => {
+    const k = 40;
+    const core = k * k;
+    const hairs = 1500;
+    let s = 7;
+    const next = () => { s = (s * 1103515245 + 12345) % 2147483648; return s / 2147483648; };
+    // hair vertex core + h hangs from a grid vertex or from an earlier hair vertex
+    const from = Array.from({ length: hairs }, (_, h) => (h > 0 && next() < 0.6 ? core + Math.floor(next() * h) : Math.floor(next() * core)));
+    const g = graphOf(core + hairs, (e) => {
+      for (let i = 0; i < k; i++) for (let j = 0; j < k; j++) {
+        const v = i * k + j;
+        if (i + 1 < k) e(v, v + k);
+        if (j + 1 < k) e(v, v + 1);
+      }
+      from.forEach((f, h) => e(core + h, f));
+    });
+    for (const seed of [1, 2, 3]) {
+      const r = nd(g, seed);
+      expectPermutation(r.permutation, g.n);
+      expectTreeConsistent(g, r.permutation, r.separatorTree!);
+      const position = invertPermutation(r.permutation);
+      const t = r.separatorTree!;
+      const inSeparator = new Uint8Array(g.n);
+      for (let i = 0; i < t.count; i++) for (let p = t.separatorFirst[i]; p < t.end[i]; p++) inSeparator[p] = 1;
+      let caught = 0;
+      for (let h = 0; h < hairs; h++) caught += inSeparator[position[core + h]];
+      expect(caught, `seed ${seed}: hair vertices in separators`).toBe(0);
+      // and the grid was really dissected (a separator of about k vertices at the root)
+      const root = t.count - 1;
+      expect(t.end[root] - t.separatorFirst[root]).toBeGreaterThanOrEqual(k / 2);
+    }
+  });
+});
