@@ -1,7 +1,7 @@
 /**
- * Tree parts of a piece. A connected piece with n − 1 edges is a tree, and a
- * postorder eliminates every vertex after its children, when its only
- * remaining neighbour is its parent: no fill at all (Parter 1961, "The use of
+ * Tree parts of a piece. In a piece without cycles (a forest), a postorder
+ * eliminates every vertex after its children, when its only remaining
+ * neighbour is its parent: no fill at all (Parter 1961, "The use of
  * linear graphs in Gauss elimination", SIAM Review 3(2); from memory). A piece
  * that is not a tree may still carry "hairs": trees hanging from a single
  * vertex of its 2-core, found by repeatedly peeling vertices of degree one.
@@ -10,23 +10,46 @@
  */
 import type { WGraph } from "./wgraph.js";
 
-/** True when the connected piece g is a tree (no self loops or repeated edges in a WGraph). */
-export function isTree(g: WGraph): boolean {
-  return g.n > 0 && g.neighbours.length === 2 * (g.n - 1);
+/** True when g has no cycle (a forest: edges = vertices − components); one search, only when edges < vertices. */
+export function isForest(g: WGraph): boolean {
+  const { n, offsets, neighbours } = g;
+  const edges = neighbours.length / 2;
+  if (edges >= n) return false;
+  const seen = new Uint8Array(n);
+  const stack = new Int32Array(n);
+  let components = 0;
+  for (let r = 0; r < n; r++) {
+    if (seen[r]) continue;
+    components++;
+    seen[r] = 1;
+    let top = 0;
+    stack[0] = r;
+    while (top >= 0) {
+      const v = stack[top--];
+      for (let p = offsets[v], pe = offsets[v + 1]; p < pe; p++) {
+        const u = neighbours[p];
+        if (!seen[u]) { seen[u] = 1; stack[++top] = u; }
+      }
+    }
+  }
+  return edges === n - components;
 }
 
 /**
- * Postorder of the tree g (new → old local ids), each component from its
- * lowest vertex: iterative depth-first search with one edge pointer per vertex.
+ * Postorder of the forest g (new → old local ids). Each tree is rooted at the
+ * first vertex of `roots` it contains (the vertices joined to the rest of the
+ * graph), else at its lowest vertex. Iterative depth-first search with one
+ * edge pointer per vertex.
  */
-export function treePostorder(g: WGraph): Int32Array {
+export function treePostorder(g: WGraph, roots: Int32Array): Int32Array {
   const { n, offsets, neighbours } = g;
   const order = new Int32Array(n);
   const stack = new Int32Array(n);
   const parent = new Int32Array(n).fill(-1);
   const next = offsets.slice(0, n);
   let k = 0;
-  for (let r = 0; r < n; r++) {
+  for (let i = 0; i < roots.length + n; i++) {
+    const r = i < roots.length ? roots[i] : i - roots.length;
     if (parent[r] >= 0) continue;
     parent[r] = r;
     let top = 0;

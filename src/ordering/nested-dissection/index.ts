@@ -15,7 +15,8 @@ import type { OrderingResult, SeparatorTree } from "../types.js";
 import {
   defaultBisectOptions, lighter, multilevelSeparator, refineGiven, separate, type BisectOptions,
 } from "./multilevel.js";
-import { isTree, peelHairs, treePostorder } from "./hairs.js";
+import { complement, denseVertices } from "./dense.js";
+import { isForest, peelHairs, treePostorder } from "./hairs.js";
 import { fmWork, type FmWork } from "./refine.js";
 import { Rng } from "./rng.js";
 import { components, inducedSubgraph, weightedGraph, type WGraph } from "./wgraph.js";
@@ -62,6 +63,8 @@ interface State {
   work: FmWork;
   /** All -1 between uses: the old → new map of inducedSubgraph. */
   localOf: Int32Array;
+  /** The graph being ordered, dense vertices included. */
+  whole: WGraph;
   /** Input hairs: the vertex each hangs from (itself for the others); null when there are none. */
   hairRoot: Int32Array | null;
   /** Position in the piece's core of each vertex (valid for the piece being cut). */
@@ -87,20 +90,48 @@ export function nestedDissection(graph: Graph, o: DissectionOptions): OrderingRe
   const s: State = {
     perm: new Int32Array(n), first: [], sepFirst: [], end: [], parent: [], stack: [], placed: 0,
     rng: new Rng(o.seed ?? 1), o, leafSize: o.leafSize ?? defaultLeafSize(n), bisect: { ...defaultBisectOptions, ...o.bisect }, work: fmWork(n, graph.neighbours.length),
-    localOf: new Int32Array(n).fill(-1), hairRoot: null, coreAt: new Int32Array(0),
+    localOf: new Int32Array(n).fill(-1), whole: weightedGraph(graph, o.vertexWeights), hairRoot: null, coreAt: new Int32Array(0),
   };
-  const g = weightedGraph(graph, o.vertexWeights);
-  s.hairRoot = peelHairs(g)?.root ?? null;
+  const whole = s.whole;
+  const { g, ids, root } = setAsideDense(s, whole);
+  s.hairRoot = hairRoots(g, ids, n);
   if (s.hairRoot !== null) s.coreAt = new Int32Array(n);
-  const ids = new Int32Array(n);
-  for (let v = 0; v < n; v++) ids[v] = v;
-  pushComponents(s, g, ids, null, 0, 0, -1);
+  pushComponents(s, g, ids, null, 0, 0, root);
   while (s.stack.length > 0) {
     if (o.signal?.aborted) throw new AbortedError("nested dissection aborted");
     processPiece(s, s.stack.pop()!);
     o.onProgress?.(n === 0 ? 1 : s.placed / n);
   }
   return { permutation: s.perm, separatorTree: buildTree(s) };
+}
+
+/**
+ * Numbers the dense vertices last, as the separator of a root node over the
+ * whole range, and returns the rest of the graph with its vertex ids and that
+ * node (-1 and the whole graph when nothing is dense).
+ */
+function setAsideDense(s: State, whole: WGraph): { g: WGraph; ids: Int32Array; root: number } {
+  const n = whole.n;
+  const dense = denseVertices(whole);
+  if (dense === null) {
+    const ids = new Int32Array(n);
+    for (let v = 0; v < n; v++) ids[v] = v;
+    return { g: whole, ids, root: -1 };
+  }
+  s.perm.set(dense, n - dense.length);
+  s.placed += dense.length;
+  const ids = complement(n, dense);
+  return { g: inducedSubgraph(whole, ids, s.localOf), ids, root: addNode(s, 0, n - dense.length, n, -1) };
+}
+
+/** Input hairs of g (vertex ids `ids` among n) as a map over all n ids; null when there are none. */
+function hairRoots(g: WGraph, ids: Int32Array, n: number): Int32Array | null {
+  const hairs = peelHairs(g);
+  if (hairs === null) return null;
+  const root = new Int32Array(n);
+  for (let v = 0; v < n; v++) root[v] = v;
+  for (let i = 0; i < g.n; i++) root[ids[i]] = ids[hairs.root[i]];
+  return root;
 }
 
 function addNode(s: State, first: number, sepFirst: number, end: number, parent: number): number {
@@ -110,12 +141,12 @@ function addNode(s: State, first: number, sepFirst: number, end: number, parent:
 
 function processPiece(s: State, piece: Piece): void {
   const g = piece.graph;
-  if (piece.leaf || g.n <= s.leafSize) {
-    placeLeaf(s, piece);
+  if (isForest(g)) {
+    placeLeaf(s, piece, treePostorder(g, attachedVertices(s, piece)));
     return;
   }
-  if (isTree(g)) {
-    placeLeaf(s, piece, treePostorder(g));
+  if (piece.leaf || g.n <= s.leafSize) {
+    placeLeaf(s, piece);
     return;
   }
   const label = cutPiece(s, piece);
@@ -132,6 +163,21 @@ function processPiece(s: State, piece: Piece): void {
   s.placed += sepCount;
   const mid = pushComponents(s, g, piece.ids, label, 0, piece.lo, node);
   pushComponents(s, g, piece.ids, label, 1, mid, node);
+}
+
+/**
+ * The vertices of the piece with neighbours outside it (in separators or set
+ * aside): rooted there, a tree is eliminated before the vertex that joins it
+ * to the rest of the graph and adds no fill to it.
+ */
+function attachedVertices(s: State, piece: Piece): Int32Array {
+  const { graph: g, ids } = piece;
+  const whole = s.whole;
+  const out: number[] = [];
+  for (let v = 0; v < g.n; v++) {
+    if (whole.offsets[ids[v] + 1] - whole.offsets[ids[v]] > g.offsets[v + 1] - g.offsets[v]) out.push(v);
+  }
+  return Int32Array.from(out);
 }
 
 /**

@@ -1,10 +1,13 @@
 /**
- * Nested dissection on trees and on graphs with trees hanging from them.
- * A tree has an elimination order without fill — eliminate every vertex after
- * its children (Parter 1961, "The use of linear graphs in Gauss elimination",
- * SIAM Review 3(2); from memory) — so nnz(L) of a tree with n vertices is
- * exactly n + (n − 1). Dissection must reach it; and a hair hanging from a
- * mesh is never part of a separator (it separates nothing).
+ * Nested dissection on graph shapes that plain dissection handles badly.
+ * Trees: a tree has an elimination order without fill — eliminate every
+ * vertex after its children (Parter 1961, "The use of linear graphs in Gauss
+ * elimination", SIAM Review 3(2); from memory) — so nnz(L) of a tree with n
+ * vertices is exactly n + (n − 1), and dissection must reach it. Hairs (trees
+ * hanging from a mesh) separate nothing and must stay out of separators.
+ * Dense rows (a vertex joined to most others, as a bordering constraint is)
+ * are numbered last, as minimum degree numbers its dense rows (Amestoy, Davis
+ * & Duff 1996), and must not change how the rest is dissected.
  */
 import fc from "fast-check";
 import { describe, expect, it } from "vitest";
@@ -125,5 +128,42 @@ describe("nested dissection with hairs", () => {
       const root = t.count - 1;
       expect(t.end[root] - t.separatorFirst[root]).toBeGreaterThanOrEqual(k / 2);
     }
+  });
+});
+
+describe("nested dissection with dense rows", () => {
+  const k = 30;
+  const grid = (add: (a: number, b: number) => void) => {
+    for (let i = 0; i < k; i++) for (let j = 0; j < k; j++) {
+      const v = i * k + j;
+      if (i + 1 < k) add(v, v + k);
+      if (j + 1 < k) add(v, v + 1);
+    }
+  };
+  it("a grid bordered by two dense rows: the rows go last and the grid is dissected exactly as without them", () => {
+    const m = k * k;
+    const plain = graphOf(m, grid);
+    const bordered = graphOf(m + 2, (e) => {
+      grid(e);
+      for (let v = 0; v < m; v++) { e(m, v); if (v % 2 === 0) e(m + 1, v); }
+    });
+    for (const seed of [1, 2]) {
+      const r = nd(bordered, seed);
+      expectPermutation(r.permutation, m + 2);
+      expectTreeConsistent(bordered, r.permutation, r.separatorTree!);
+      expect(Array.from(r.permutation.subarray(m))).toEqual([m, m + 1]);
+      const alone = nd(plain, seed);
+      expect(Array.from(r.permutation.subarray(0, m))).toEqual(Array.from(alone.permutation));
+      // the border adds at most two entries per grid column plus its own 2×2 triangle (counting argument)
+      expect(countFill(bordered, r.permutation).nnzL).toBeLessThanOrEqual(countFill(plain, alone.permutation).nnzL + 2 * m + 3);
+    }
+  });
+
+  it("a clique, where every vertex is dense, still gets a valid ordering and tree", () => {
+    const n = 500;
+    const g = graphOf(n, (e) => { for (let i = 0; i < n; i++) for (let j = 0; j < i; j++) e(i, j); });
+    const r = nd(g);
+    expectPermutation(r.permutation, n);
+    expectTreeConsistent(g, r.permutation, r.separatorTree!);
   });
 });
