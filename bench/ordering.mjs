@@ -30,18 +30,20 @@ function fromEdges(n, add) {
   return SparseMatrix.fromTriplets(n, n, Int32Array.from(r), Int32Array.from(c), Float64Array.from(v));
 }
 
+/** Edges of the k×k grid (5-point, or 9-point with `nine`). */
+function grid2Edges(k, e, nine = false) {
+  for (let y = 0; y < k; y++) for (let x = 0; x < k; x++) {
+    const v = y * k + x;
+    if (x + 1 < k) e(v, v + 1);
+    if (y + 1 < k) e(v, v + k);
+    if (nine && x + 1 < k && y + 1 < k) { e(v, v + k + 1); e(v + 1, v + k); }
+  }
+}
+
 function grid2(k, nine) {
   const xy = new Float64Array(2 * k * k);
   for (let v = 0; v < k * k; v++) { xy[2 * v] = v % k; xy[2 * v + 1] = Math.floor(v / k); }
-  const A = fromEdges(k * k, (e) => {
-    for (let y = 0; y < k; y++) for (let x = 0; x < k; x++) {
-      const v = y * k + x;
-      if (x + 1 < k) e(v, v + 1);
-      if (y + 1 < k) e(v, v + k);
-      if (nine && x + 1 < k && y + 1 < k) { e(v, v + k + 1); e(v + 1, v + k); }
-    }
-  });
-  return { A, xy };
+  return { A: fromEdges(k * k, (e) => grid2Edges(k, e, nine)), xy };
 }
 
 function grid3(k) {
@@ -139,6 +141,10 @@ const problems = {
   "grid3-20": () => grid3(20), "grid3-40": () => grid3(40), "grid3-60": () => grid3(60),
   "grid9-255": () => grid2(255, true), "elastic-16": () => elasticity(16),
   "geometric-100k": () => geometric(100000), "mesh-holes-400": () => jitteredMesh(400),
+  // shapes that defeat plain dissection: a tree, hubs joined to everything, a grid bordered by dense rows
+  "path-1m": () => ({ A: fromEdges(1e6, (e) => { for (let v = 1; v < 1e6; v++) e(v - 1, v); }) }),
+  "hubs-100k": () => ({ A: fromEdges(1e5, (e) => { for (let v = 10; v < 1e5; v++) for (let h = 0; h < 10; h++) e(h, v); }) }),
+  "bordered-300": () => ({ A: fromEdges(300 * 300 + 2, (e) => { grid2Edges(300, e); for (let v = 0; v < 300 * 300; v++) { e(90000, v); if (v % 2 === 0) e(90001, v); } }) }),
 };
 
 /** Orderings whose factor fits comfortably: natural and RCM only up to this many unknowns. */
