@@ -1,14 +1,12 @@
 import { describe, expect, it } from "vitest";
 import { AbortedError, InputError } from "../src/errors.js";
 import type { Graph } from "../src/graph/types.js";
-import { expectPermutation, graphOf } from "./helpers/graphs.js";
+import { expectPermutation, graphOf, gridGraph } from "./helpers/graphs.js";
 import { computeOrdering, DISSECTION_THRESHOLD } from "../src/ordering/index.js";
 import type { SeparatorTree } from "../src/ordering/types.js";
 import { countFill } from "../src/symbolic/index.js";
 
-const grid2 = (k: number): Graph => graphOf(k * k, (e) => {
-  for (let v = 0; v < k * k; v++) { if (v % k + 1 < k) e(v, v + 1); if (v + k < k * k) e(v, v + k); }
-});
+const grid2 = (k: number): Graph => gridGraph(k);
 /** k×k×k nodes, `dof` unknowns per node, all unknowns of nodes within one step (27-point) coupled: elasticity-like. */
 function elasticity(k: number, dof: number): Graph {
   const nodes = k * k * k;

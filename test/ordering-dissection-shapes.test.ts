@@ -18,7 +18,7 @@ import { nestedDissection } from "../src/ordering/nested-dissection/index.js";
 import { weightedGraph } from "../src/ordering/nested-dissection/wgraph.js";
 import { invertPermutation } from "../src/symbolic/etree.js";
 import { countFill } from "../src/symbolic/index.js";
-import { expectPermutation, expectTreeConsistent, graphOf } from "./helpers/graphs.js";
+import { expectPermutation, expectTreeConsistent, graphOf, gridGraph } from "./helpers/graphs.js";
 
 /** Uniform-ish random tree: vertex i > 0 hangs from a random earlier vertex. */
 const randomTree = fc.integer({ min: 1, max: 3000 }).chain((n) => fc.tuple(
@@ -105,12 +105,9 @@ describe("nested dissection with hairs", () => {
     const next = () => { s = (s * 1103515245 + 12345) % 2147483648; return s / 2147483648; };
     // hair vertex core + h hangs from a grid vertex or from an earlier hair vertex
     const from = Array.from({ length: hairs }, (_, h) => (h > 0 && next() < 0.6 ? core + Math.floor(next() * h) : Math.floor(next() * core)));
+    const grid = gridGraph(k);
     const g = graphOf(core + hairs, (e) => {
-      for (let i = 0; i < k; i++) for (let j = 0; j < k; j++) {
-        const v = i * k + j;
-        if (i + 1 < k) e(v, v + k);
-        if (j + 1 < k) e(v, v + 1);
-      }
+      for (let v = 0; v < core; v++) for (let p = grid.offsets[v]; p < grid.offsets[v + 1]; p++) e(v, grid.neighbours[p]);
       from.forEach((f, h) => e(core + h, f));
     });
     for (const seed of [1, 2, 3]) {
@@ -134,11 +131,8 @@ describe("nested dissection with hairs", () => {
 describe("nested dissection with dense rows", () => {
   const k = 30;
   const grid = (add: (a: number, b: number) => void) => {
-    for (let i = 0; i < k; i++) for (let j = 0; j < k; j++) {
-      const v = i * k + j;
-      if (i + 1 < k) add(v, v + k);
-      if (j + 1 < k) add(v, v + 1);
-    }
+    const g = gridGraph(k);
+    for (let v = 0; v < g.n; v++) for (let p = g.offsets[v]; p < g.offsets[v + 1]; p++) if (g.neighbours[p] > v) add(v, g.neighbours[p]);
   };
   it("a grid bordered by two dense rows: the rows go last and the grid is dissected exactly as without them", () => {
     const m = k * k;

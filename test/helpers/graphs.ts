@@ -38,6 +38,30 @@ export function graphOf(n: number, add: (edge: (a: number, b: number) => void) =
   return graphFromEdges(n, edges);
 }
 
+/** The k×k grid graph: 5-point, or 9-point with `nine` (both diagonals of every cell). */
+export function gridGraph(k: number, nine = false): Graph {
+  return graphOf(k * k, (e) => {
+    for (let y = 0; y < k; y++) for (let x = 0; x < k; x++) {
+      const v = y * k + x;
+      if (x + 1 < k) e(v, v + 1);
+      if (y + 1 < k) e(v, v + k);
+      if (nine && x + 1 < k && y + 1 < k) { e(v, v + k + 1); e(v + 1, v + k); }
+    }
+  });
+}
+
+/** The k×k×k 7-point grid graph. */
+export function cubeGraph(k: number): Graph {
+  return graphOf(k * k * k, (e) => {
+    for (let v = 0; v < k * k * k; v++) {
+      const x = v % k, y = Math.floor(v / k) % k, z = Math.floor(v / (k * k));
+      if (x + 1 < k) e(v, v + 1);
+      if (y + 1 < k) e(v, v + k);
+      if (z + 1 < k) e(v, v + k * k);
+    }
+  });
+}
+
 /** nnz(L) incl. diagonal by brute-force symbolic elimination in the given order (the definition; Rose 1972 graph model). */
 export function eliminationFill(g: Graph, perm: ArrayLike<number>): number {
   const adj: Set<number>[] = Array.from({ length: g.n }, (_, v) => new Set(g.neighbours.subarray(g.offsets[v], g.offsets[v + 1])));
