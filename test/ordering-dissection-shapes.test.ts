@@ -4,7 +4,8 @@
  * vertex after its children (Parter 1961, "The use of linear graphs in Gauss
  * elimination", SIAM Review 3(2); from memory) — so nnz(L) of a tree with n
  * vertices is exactly n + (n − 1), and dissection must reach it. Hairs (trees
- * hanging from a mesh) separate nothing and must stay out of separators.
+ * hanging from a mesh) separate nothing, must stay out of separators and,
+ * with the leaves ordered knowing their outside neighbours, add no fill.
  * Dense rows (a vertex joined to most others, as a bordering constraint is)
  * are numbered last, as minimum degree numbers its dense rows (Amestoy, Davis
  * & Duff 1996), and must not change how the rest is dissected.
@@ -12,7 +13,7 @@
 import fc from "fast-check";
 import { describe, expect, it } from "vitest";
 import { computeOrdering } from "../src/ordering/index.js";
-import { minimumDegree } from "../src/ordering/minimum-degree.js";
+import { leafMinimumDegree } from "../src/ordering/leaf-degree.js";
 import { peelHairs } from "../src/ordering/nested-dissection/hairs.js";
 import { nestedDissection } from "../src/ordering/nested-dissection/index.js";
 import { weightedGraph } from "../src/ordering/nested-dissection/wgraph.js";
@@ -24,7 +25,7 @@ import { expectPermutation, expectTreeConsistent, graphOf, gridGraph } from "./h
 const randomTree = fc.integer({ min: 1, max: 3000 }).chain((n) => fc.tuple(
   fc.constant(n), fc.array(fc.double({ min: 0, max: 1, maxExcluded: true, noNaN: true }), { minLength: n, maxLength: n })));
 
-const nd = (g: ReturnType<typeof graphOf>, seed = 1) => nestedDissection(g, { orderLeaf: (l) => minimumDegree(l), seed, leafSize: 64 });
+const nd = (g: ReturnType<typeof graphOf>, seed = 1) => nestedDissection(g, { orderLeaf: (l, halo) => leafMinimumDegree(l, undefined, halo), seed, leafSize: 64 });
 
 describe("nested dissection on trees", () => {
   it("orders random trees and forests with no fill (property; zero fill of trees, Parter 1961)", () => {
@@ -121,6 +122,12 @@ describe("nested dissection with hairs", () => {
       let caught = 0;
       for (let h = 0; h < hairs; h++) caught += inSeparator[position[core + h]];
       expect(caught, `seed ${seed}: hair vertices in separators`).toBe(0);
+      // with the separators above in their halo, leaves eliminate a hair before the vertex it hangs
+      // from: each hair column of L holds one off-diagonal entry, its edge toward the grid (no fill)
+      const { columnCounts } = countFill(g, r.permutation);
+      let filled = 0;
+      for (let h = 0; h < hairs; h++) if (columnCounts[position[core + h]] !== 2) filled++;
+      expect(filled, `seed ${seed}: hair columns with fill`).toBe(0);
       // and the grid was really dissected (a separator of about k vertices at the root)
       const root = t.count - 1;
       expect(t.end[root] - t.separatorFirst[root]).toBeGreaterThanOrEqual(k / 2);
@@ -134,7 +141,7 @@ describe("nested dissection with dense rows", () => {
     const g = gridGraph(k);
     for (let v = 0; v < g.n; v++) for (let p = g.offsets[v]; p < g.offsets[v + 1]; p++) if (g.neighbours[p] > v) add(v, g.neighbours[p]);
   };
-  it("a grid bordered by two dense rows: the rows go last and the grid is dissected exactly as without them", () => {
+  it("a grid bordered by two dense rows: the rows go last and the grid is cut exactly as without them", () => {
     const m = k * k;
     const plain = graphOf(m, grid);
     const bordered = graphOf(m + 2, (e) => {
@@ -146,8 +153,15 @@ describe("nested dissection with dense rows", () => {
       expectPermutation(r.permutation, m + 2);
       expectTreeConsistent(bordered, r.permutation, r.separatorTree!);
       expect(Array.from(r.permutation.subarray(m))).toEqual([m, m + 1]);
+      // the same separators in the same places; only the leaves' orders may differ (the rows are in their halo)
       const alone = nd(plain, seed);
-      expect(Array.from(r.permutation.subarray(0, m))).toEqual(Array.from(alone.permutation));
+      const t = r.separatorTree!;
+      const u = alone.separatorTree!;
+      expect(t.count).toBe(u.count + 1);
+      for (let i = 0; i < u.count; i++) {
+        expect([t.first[i], t.separatorFirst[i], t.end[i], t.parent[i]]).toEqual([u.first[i], u.separatorFirst[i], u.end[i], u.parent[i] < 0 ? u.count : u.parent[i]]);
+        expect(Array.from(r.permutation.subarray(t.separatorFirst[i], t.end[i]))).toEqual(Array.from(alone.permutation.subarray(u.separatorFirst[i], u.end[i])));
+      }
       // the border adds at most two entries per grid column plus its own 2×2 triangle (counting argument)
       expect(countFill(bordered, r.permutation).nnzL).toBeLessThanOrEqual(countFill(plain, alone.permutation).nnzL + 2 * m + 3);
     }

@@ -91,9 +91,10 @@ function dissect(g: Graph, options: OrderingOptions): OrderingResult {
     throw new InputError(`coordinateMode must be "refine", "plain" or "ignore", got ${String(mode)}`);
   }
   // small leaves: exact minimum degree on bitsets; larger ones: approximate minimum degree,
-  // setting dense rows aside as it does by default (keeps star-like leaves linear)
+  // setting dense rows aside as it does by default (keeps star-like leaves linear);
+  // both count the leaf's halo (its neighbours in the separators above it) in the degrees
   const work = leafWork();
-  const orderLeaf = (leaf: Graph): Int32Array => leafMinimumDegree(leaf, work);
+  const orderLeaf = (leaf: Graph, halo: number): Int32Array => leafMinimumDegree(leaf, work, halo);
   const common = {
     orderLeaf, seed: options.seed, signal: options.signal, onProgress: options.onProgress, coordinateMode: options.coordinateMode,
   };

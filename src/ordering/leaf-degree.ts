@@ -20,6 +20,14 @@
  * becomes P itself are eliminated with v (mass elimination). Degree buckets are
  * last-in first-out lists. Graphs above {@link LEAF_LIMIT} vertices go to
  * approximate minimum degree.
+ *
+ * Halo (Pellegrini, Roman & Amestoy 2000, "Hybridizing nested dissection and halo
+ * approximate minimum degree for efficient sparse matrix ordering", Concurrency:
+ * Practice and Experience 12; from memory): the last vertices may be halo, i.e.
+ * neighbours outside a leaf of nested dissection that are numbered after it. They
+ * are bits in the rows of the others (so they count in degrees, in mass elimination
+ * and in the indistinguishability test) but have no row of their own, no weight and
+ * no bucket: they are never pivots and never members of a supervariable.
  */
 import type { Graph } from "../graph/types.js";
 import { defaultDenseThreshold, minimumDegreeTrusted } from "./minimum-degree.js";
@@ -70,20 +78,22 @@ export function leafWork(capacity: number = LEAF_LIMIT): LeafWork {
 
 /**
  * Minimum degree ordering of a small graph (sorted adjacency, no self loops).
- * `work` is reused when its capacity is at least g.n. Above {@link LEAF_LIMIT}
- * vertices this is `minimumDegreeTrusted(g, defaultDenseThreshold(g.n), true)`.
- * @returns permutation, new position → vertex.
+ * `work` is reused when its capacity is at least g.n. The last `halo` vertices
+ * are halo (see above); only edges between a halo vertex and the others matter.
+ * Above {@link LEAF_LIMIT} vertices (halo included) this is
+ * `minimumDegreeTrusted(g, defaultDenseThreshold(g.n), true, undefined, halo)`.
+ * @returns permutation of the n − halo non-halo vertices, new position → vertex.
  */
-export function leafMinimumDegree(g: Graph, work?: LeafWork): Int32Array {
-  const n = g.n;
-  if (n > LEAF_LIMIT) return minimumDegreeTrusted(g, defaultDenseThreshold(n), true);
-  const perm = new Int32Array(n);
-  if (n === 0) return perm;
+export function leafMinimumDegree(g: Graph, work?: LeafWork, halo = 0): Int32Array {
+  const n = g.n, m = n - halo;
+  if (n > LEAF_LIMIT) return minimumDegreeTrusted(g, defaultDenseThreshold(n), true, undefined, halo);
+  const perm = new Int32Array(m);
+  if (m === 0) return perm;
   const s = work !== undefined && work.capacity >= n ? work : leafWork(n);
   const w = (n + 31) >>> 5;
-  loadGraph(s, g, w);
+  loadGraph(s, g, w, m);
   let k = 0, minDeg = 0;
-  while (k < n) {
+  while (k < m) {
     while (s.head[minDeg] < 0) minDeg++;
     const v = s.head[minDeg];
     unlink(s, v);
@@ -93,12 +103,16 @@ export function leafMinimumDegree(g: Graph, work?: LeafWork): Int32Array {
   return perm;
 }
 
-/** Fills rows, row hashes, singleton supervariables, degrees and buckets from the adjacency lists. */
-function loadGraph(s: LeafWork, g: Graph, w: number): void {
+/**
+ * Fills rows, row hashes, singleton supervariables, degrees and buckets from the
+ * adjacency lists of the m non-halo vertices; halo vertices get weight 0 (no row, no bucket).
+ */
+function loadGraph(s: LeafWork, g: Graph, w: number, m: number): void {
   const { rows, weight, memberNext, memberLast, degree, code } = s, n = g.n, { offsets, neighbours } = g;
-  rows.fill(0, 0, n * w);
+  rows.fill(0, 0, m * w);
   s.head.fill(-1, 0, n);
-  for (let v = n - 1; v >= 0; v--) {
+  weight.fill(0, m, n);
+  for (let v = m - 1; v >= 0; v--) {
     const base = v * w, end = offsets[v + 1];
     let h = 0;
     for (let p = offsets[v]; p < end; p++) {

@@ -4,7 +4,11 @@
  * Matrix Anal. Appl. 17(4)). Element absorption, mass elimination,
  * supervariables found by hashing, approximate external degrees, optional
  * aggressive absorption; rows of very high degree are set aside and ordered last.
- * The steps live in ./minimum-degree/; this file drives them.
+ * The steps live in ./minimum-degree/; this file drives them. Internally the
+ * last vertices may be a halo (Pellegrini, Roman & Amestoy 2000, "Hybridizing
+ * nested dissection and halo approximate minimum degree for efficient sparse
+ * matrix ordering", Concurrency: Practice and Experience 12; from memory):
+ * counted in degrees, never ordered.
  */
 import { InputError } from "../errors.js";
 import type { Graph } from "../graph/types.js";
@@ -50,15 +54,18 @@ export function minimumDegree(graph: Graph, options: MinimumDegreeOptions = {}):
  * Same as {@link minimumDegree} without checking the graph: for callers that
  * built the graph themselves (for example the leaves of nested dissection).
  * `arenaSlack` sets the spare room of the list arena (tests use a tiny value to exercise compaction).
+ * The last `halo` vertices are halo: they count in the degrees of their
+ * neighbours but are never pivots, never set aside as dense and never merged
+ * with the others; the result then orders only the first n − halo vertices.
  * @internal
  */
-export function minimumDegreeTrusted(graph: Graph, denseThreshold: number, aggressive: boolean, arenaSlack?: number): Int32Array {
+export function minimumDegreeTrusted(graph: Graph, denseThreshold: number, aggressive: boolean, arenaSlack?: number, halo = 0): Int32Array {
   const n = graph.n;
-  if (n === 0) return new Int32Array(0);
-  const s = new MdWorkspace(graph, arenaSlack);
+  if (n === halo) return new Int32Array(0);
+  const s = new MdWorkspace(graph, arenaSlack, halo);
   const dense = setAsideDense(s, graph, denseThreshold);
   const el: NewElement = { first: 0, end: 0, cliqueWeight: 0 };
-  while (s.eliminated < n) {
+  while (s.eliminated < s.firstHalo) {
     let d = s.minDegree;
     while (s.bucketHead[d] === -1) d++;
     s.minDegree = d;
@@ -91,18 +98,18 @@ function advanceMark(s: MdWorkspace): void {
   s.mark0 = MARK_START;
 }
 
-/** Set aside vertices of degree above the threshold; bucket the rest by their remaining degree. */
+/** Set aside non-halo vertices of degree above the threshold; bucket the other non-halo vertices by their remaining degree. */
 function setAsideDense(s: MdWorkspace, graph: Graph, threshold: number): Int32Array {
   const { n, offsets, neighbours } = graph;
-  const { degree, weight, start, size } = s;
+  const { degree, weight, start, size, firstHalo } = s;
   let count = 0;
   for (let j = 0; j < n; j++) {
     degree[j] = offsets[j + 1] - offsets[j];
-    if (degree[j] > threshold) count++;
+    if (degree[j] > threshold && j < firstHalo) count++;
   }
   const dense = new Int32Array(count);
   count = 0;
-  for (let j = 0; j < n; j++) {
+  for (let j = 0; j < firstHalo; j++) {
     if (offsets[j + 1] - offsets[j] <= threshold) continue;
     dense[count++] = j;
     weight[j] = 0;
@@ -112,6 +119,6 @@ function setAsideDense(s: MdWorkspace, graph: Graph, threshold: number): Int32Ar
   }
   s.eliminated = count;
   s.minDegree = n;
-  for (let j = 0; j < n; j++) if (weight[j] !== 0) bucketInsert(s, j, degree[j]);
+  for (let j = 0; j < firstHalo; j++) if (weight[j] !== 0) bucketInsert(s, j, degree[j]);
   return dense;
 }

@@ -37,7 +37,7 @@ function buildInPlace(s: MdWorkspace, me: number, out: NewElement): void {
     total += w;
     weight[i] = -w;
     arena[dst++] = i;
-    bucketRemove(s, i);
+    if (i < s.firstHalo) bucketRemove(s, i);
   }
   out.first = first;
   out.end = dst;
@@ -73,7 +73,7 @@ function buildFromElements(s: MdWorkspace, me: number, out: NewElement): void {
       total += w;
       weight[i] = -w;
       s.arena[s.free++] = i;
-      bucketRemove(s, i);
+      if (i < s.firstHalo) bucketRemove(s, i); // halo variables are in no bucket
     }
     if (e !== me) {
       start[e] = -1;

@@ -5,7 +5,9 @@
  * absorption), eliminate it together with the pivot when only the new element
  * remains (mass elimination), bound its external degree, merge
  * indistinguishable variables found by hashing, and put the survivors back
- * into the degree buckets.
+ * into the degree buckets. Halo variables (index ≥ firstHalo) go through the
+ * same updates but are never mass eliminated, never merged with a non-halo
+ * variable and never bucketed.
  */
 import type { NewElement } from "./pivot-element.js";
 import { bucketInsert, emitMembers, joinMembers, type MdWorkspace } from "./workspace.js";
@@ -49,7 +51,7 @@ export function pruneAndBound(s: MdWorkspace, me: number, el: NewElement, aggres
       arena[pn++] = j;
       hash += j;
     }
-    if (elementCount[i] === 1 && p3 === pn) {
+    if (elementCount[i] === 1 && p3 === pn && i < s.firstHalo) {
       massEliminate(s, i, el);
       continue;
     }
@@ -80,6 +82,7 @@ function massEliminate(s: MdWorkspace, i: number, el: NewElement): void {
 /** Merge variables of Lme that have identical lists (same hash bucket, then compared). */
 export function mergeIndistinguishable(s: MdWorkspace, el: NewElement): void {
   const { arena, start, size, elementCount, weight, mark, hashHead, hashNext, hashKey } = s;
+  const halo = s.firstHalo;
   for (let pm = el.first, pmEnd = el.end; pm < pmEnd; pm++) {
     const i = arena[pm];
     if (weight[i] >= 0) continue;
@@ -95,7 +98,7 @@ export function mergeIndistinguishable(s: MdWorkspace, el: NewElement): void {
       for (let p = pa + 1; p < pa + len; p++) mark[arena[p]] = mk;
       let prev = a;
       for (let b = hashNext[a]; b !== -1; b = hashNext[b]) {
-        if (size[b] === len && elementCount[b] === ec && sameMarks(s, b, mk)) {
+        if (size[b] === len && elementCount[b] === ec && (a < halo) === (b < halo) && sameMarks(s, b, mk)) {
           weight[a] += weight[b];
           weight[b] = 0;
           start[b] = -1;
@@ -131,7 +134,7 @@ export function finishElement(s: MdWorkspace, me: number, el: NewElement, builtA
     weight[i] = wi;
     const bound = remaining - wi;
     const d = degree[i] + dme - wi;
-    bucketInsert(s, i, d < bound ? d : bound);
+    if (i < s.firstHalo) bucketInsert(s, i, d < bound ? d : bound);
     arena[dst++] = i;
   }
   const len = dst - el.first;

@@ -8,6 +8,12 @@
  * variable, its first elementCount[j] entries are adjacent elements, the rest
  * adjacent variables. For an element, the list holds the variables of its
  * clique. start[j] = -1 means "no list" (dead, merged, eliminated, or empty).
+ *
+ * Halo (Pellegrini, Roman & Amestoy 2000, "Hybridizing nested dissection and
+ * halo approximate minimum degree for efficient sparse matrix ordering",
+ * Concurrency: Practice and Experience 12; from memory): the vertices from
+ * firstHalo on are variables that count in degrees but are never pivots: they
+ * stay out of the degree buckets and never join a non-halo supervariable.
  */
 import type { Graph } from "../../graph/types.js";
 
@@ -16,6 +22,8 @@ export const MARK_START = 2 ** 31;
 
 export class MdWorkspace {
   readonly n: number;
+  /** Vertices firstHalo .. n−1 are halo (never ordered). */
+  readonly firstHalo: number;
   arena: Int32Array;
   /** Next free slot of the arena. */
   free: number;
@@ -42,17 +50,21 @@ export class MdWorkspace {
   /** Members of each supervariable as a chain, so they are emitted together. */
   readonly memberNext: Int32Array;
   readonly memberTail: Int32Array;
-  /** The permutation under construction (new → old) and its fill count. */
+  /** The permutation under construction (new → old) of the non-halo vertices. */
   readonly order: Int32Array;
   ordered = 0;
   /** Total weight eliminated (pivots, merged, mass eliminated, set aside). */
   eliminated = 0;
 
-  /** `slack`: arena slots beyond the graph's entries (default nnz/5 + 2n + 16); compaction and growth handle any value. */
-  constructor(graph: Graph, slack?: number) {
+  /**
+   * `slack`: arena slots beyond the graph's entries (default nnz/5 + 2n + 16); compaction and growth handle any value.
+   * `halo`: how many of the last vertices are halo.
+   */
+  constructor(graph: Graph, slack?: number, halo = 0) {
     const n = graph.n;
     const nnz = graph.offsets[n];
     this.n = n;
+    this.firstHalo = n - halo;
     this.arena = new Int32Array(nnz + (slack ?? Math.ceil(nnz / 5) + 2 * n + 16));
     this.arena.set(graph.neighbours.subarray(0, nnz));
     this.free = nnz;
@@ -72,7 +84,7 @@ export class MdWorkspace {
     this.memberNext = new Int32Array(n).fill(-1);
     this.memberTail = new Int32Array(n);
     for (let j = 0; j < n; j++) this.memberTail[j] = j;
-    this.order = new Int32Array(n);
+    this.order = new Int32Array(n - halo);
   }
 }
 

@@ -5,7 +5,12 @@
  * piece is split into its connected components, a large connected piece is cut
  * by a vertex separator numbered last in its range, and pieces below the leaf
  * size are ordered by the supplied leaf ordering (minimum degree). Produces the
- * separator tree in the new numbering.
+ * separator tree in the new numbering. A leaf is ordered together with its halo,
+ * its neighbours in the ancestors' separators, which are numbered after it and
+ * count in the degrees of the leaf's vertices (halo minimum degree: Pellegrini,
+ * Roman & Amestoy 2000, "Hybridizing nested dissection and halo approximate
+ * minimum degree for efficient sparse matrix ordering", Concurrency: Practice and
+ * Experience 12; from memory).
  */
 import { AbortedError } from "../../errors.js";
 import type { Graph } from "../../graph/types.js";
@@ -26,8 +31,13 @@ export type CoordinateMode = "refine" | "plain" | "ignore";
 
 /** Options of {@link nestedDissection}. */
 export interface DissectionOptions {
-  /** Orders one leaf piece (a graph with sorted adjacency); returns new → old. */
-  orderLeaf: (g: Graph) => Int32Array;
+  /**
+   * Orders one leaf piece: g (sorted adjacency) is the leaf followed by its `halo`
+   * vertices (neighbours outside the leaf, numbered after it; only their edges to
+   * the leaf are listed). Returns new → old for the g.n − halo leaf vertices; an
+   * order of all of g is accepted too (its halo entries are skipped).
+   */
+  orderLeaf: (g: Graph, halo: number) => Int32Array;
   seed?: number;
   /** Vertex weights (supervariable sizes); all ones by default. */
   vertexWeights?: Int32Array;
@@ -63,12 +73,16 @@ interface State {
   work: FmWork;
   /** All -1 between uses: the old → new map of inducedSubgraph. */
   localOf: Int32Array;
-  /** The graph being ordered, dense vertices included. */
-  whole: WGraph;
   /** Input hairs: the vertex each hangs from (itself for the others); null when there are none. */
   hairRoot: Int32Array | null;
   /** Position in the piece's core of each vertex (valid for the piece being cut). */
   coreAt: Int32Array;
+  /** The input graph; the pieces' ids are its vertices. */
+  top: Graph;
+  /** All -1 between uses: position of a top vertex in the leaf + halo graph being built. */
+  leafAt: Int32Array;
+  /** All 0 between uses: edges to the leaf of each halo vertex, then fill cursors. */
+  haloCount: Int32Array;
 }
 
 /**
@@ -90,10 +104,10 @@ export function nestedDissection(graph: Graph, o: DissectionOptions): OrderingRe
   const s: State = {
     perm: new Int32Array(n), first: [], sepFirst: [], end: [], parent: [], stack: [], placed: 0,
     rng: new Rng(o.seed ?? 1), o, leafSize: o.leafSize ?? defaultLeafSize(n), bisect: { ...defaultBisectOptions, ...o.bisect }, work: fmWork(n, graph.neighbours.length),
-    localOf: new Int32Array(n).fill(-1), whole: weightedGraph(graph, o.vertexWeights), hairRoot: null, coreAt: new Int32Array(0),
+    localOf: new Int32Array(n).fill(-1), hairRoot: null, coreAt: new Int32Array(0),
+    top: graph, leafAt: new Int32Array(n).fill(-1), haloCount: new Int32Array(n),
   };
-  const whole = s.whole;
-  const { g, ids, root } = setAsideDense(s, whole);
+  const { g, ids, root } = setAsideDense(s, weightedGraph(graph, o.vertexWeights));
   s.hairRoot = hairRoots(g, ids, n);
   if (s.hairRoot !== null) s.coreAt = new Int32Array(n);
   pushComponents(s, g, ids, null, 0, 0, root);
@@ -172,10 +186,10 @@ function processPiece(s: State, piece: Piece): void {
  */
 function attachedVertices(s: State, piece: Piece): Int32Array {
   const { graph: g, ids } = piece;
-  const whole = s.whole;
+  const { offsets } = s.top;
   const out: number[] = [];
   for (let v = 0; v < g.n; v++) {
-    if (whole.offsets[ids[v] + 1] - whole.offsets[ids[v]] > g.offsets[v + 1] - g.offsets[v]) out.push(v);
+    if (offsets[ids[v] + 1] - offsets[ids[v]] > g.offsets[v + 1] - g.offsets[v]) out.push(v);
   }
   return Int32Array.from(out);
 }
@@ -271,20 +285,62 @@ function pushComponents(s: State, g: WGraph, ids: Int32Array, label: Int8Array |
   return pos;
 }
 
-/** Orders a leaf piece (by the leaf ordering unless `perm` is given) and records a leaf node. */
+/** Orders a leaf piece (by the leaf ordering with its halo unless `perm` is given) and records a leaf node. */
 function placeLeaf(s: State, piece: Piece, perm?: Int32Array): void {
-  const g = piece.graph;
-  perm ??= s.o.orderLeaf(sortedGraph(g));
-  for (let i = 0; i < g.n; i++) s.perm[piece.lo + i] = piece.ids[perm[i]];
-  s.placed += g.n;
-  addNode(s, piece.lo, piece.lo + g.n, piece.lo + g.n, piece.parent);
+  const n = piece.graph.n;
+  if (perm === undefined) {
+    const { graph, halo } = leafWithHalo(s, piece.ids);
+    perm = s.o.orderLeaf(graph, halo);
+  }
+  let k = piece.lo;
+  for (let i = 0; i < perm.length; i++) if (perm[i] < n) s.perm[k++] = piece.ids[perm[i]];
+  s.placed += n;
+  addNode(s, piece.lo, piece.lo + n, piece.lo + n, piece.parent);
 }
 
-/** The plain graph of a piece with each adjacency list sorted ascending. */
-function sortedGraph(g: WGraph): Graph {
-  const neighbours = g.neighbours.slice();
-  for (let v = 0; v < g.n; v++) neighbours.subarray(g.offsets[v], g.offsets[v + 1]).sort();
-  return { n: g.n, offsets: g.offsets, neighbours };
+/**
+ * The leaf `ids` (vertices of the input graph) followed by its halo: the outside
+ * neighbours, in order of first appearance, listing only their edges to the leaf.
+ * Adjacency lists sorted ascending. One pass over the leaf's lists in the input graph.
+ */
+function leafWithHalo(s: State, ids: Int32Array): { graph: Graph; halo: number } {
+  const { offsets, neighbours } = s.top;
+  const { leafAt: at, haloCount: count } = s;
+  const n = ids.length;
+  let halo = 0, leafEntries = 0, haloEntries = 0;
+  for (let i = 0; i < n; i++) at[ids[i]] = i;
+  const haloIds: number[] = [];
+  for (let i = 0; i < n; i++) {
+    const v = ids[i];
+    leafEntries += offsets[v + 1] - offsets[v];
+    for (let p = offsets[v]; p < offsets[v + 1]; p++) {
+      const u = neighbours[p];
+      if (at[u] < 0) { at[u] = n + halo++; haloIds.push(u); }
+      if (at[u] >= n) { count[at[u] - n]++; haloEntries++; }
+    }
+  }
+  const off = new Int32Array(n + halo + 1);
+  const adj = new Int32Array(leafEntries + haloEntries);
+  let q = 0;
+  for (let i = 0; i < n; i++) {
+    const v = ids[i], from = q, short = offsets[v + 1] - offsets[v] <= 16;
+    for (let p = offsets[v]; p < offsets[v + 1]; p++) {
+      const u = at[neighbours[p]];
+      let j = q++; // short lists: insertion sort as they are filled
+      if (short) for (; j > from && adj[j - 1] > u; j--) adj[j] = adj[j - 1];
+      adj[j] = u;
+    }
+    if (!short) adj.subarray(from, q).sort();
+    off[i + 1] = q;
+  }
+  for (let h = 0; h < halo; h++) { off[n + h + 1] = off[n + h] + count[h]; count[h] = off[n + h]; }
+  for (let i = 0; i < n; i++) {
+    const v = ids[i];
+    for (let p = offsets[v]; p < offsets[v + 1]; p++) { const l = at[neighbours[p]]; if (l >= n) adj[count[l - n]++] = i; }
+  }
+  for (let i = 0; i < n; i++) at[ids[i]] = -1;
+  for (let h = 0; h < halo; h++) { at[haloIds[h]] = -1; count[h] = 0; }
+  return { graph: { n: n + halo, offsets: off, neighbours: adj }, halo };
 }
 
 /** Nodes were created parents first; reversing lists children before parents. */
