@@ -7,7 +7,9 @@ import { minimumDegree } from "../src/ordering/minimum-degree.js";
 import { Int32Arena } from "../src/ordering/nested-dissection/arena.js";
 import { nestedDissection } from "../src/ordering/nested-dissection/index.js";
 import { coverWork, SEPARATOR, vertexSeparatorFromCut } from "../src/ordering/nested-dissection/separator.js";
+import { MaxHeap } from "../src/ordering/nested-dissection/heap.js";
 import { evaluate, fmWork } from "../src/ordering/nested-dissection/refine.js";
+import { refineSeparator, separatorState } from "../src/ordering/nested-dissection/separator-refine.js";
 import { inducedSubgraph, weightedGraph } from "../src/ordering/nested-dissection/wgraph.js";
 import { countFill } from "../src/symbolic/index.js";
 
@@ -208,6 +210,60 @@ describe("nested dissection: edge cut to vertex separator (König cover) with a 
       vertexSeparatorFromCut(g, listed, work, { list, count: list.length });
       expect(Array.from(listed)).toEqual(Array.from(scanned));
     }), { numRuns: 200 });
+  });
+});
+
+describe("nested dissection: FM priority queues", () => {
+  type Op = { kind: "push" | "update" | "remove" | "pop" | "clear"; v: number; k: number };
+  const ops = (n: number, lo: number, hi: number) => fc.array(fc.record({
+    kind: fc.constantFrom("push", "push", "update", "update", "remove", "pop", "clear"),
+    v: fc.nat(n - 1), k: fc.integer({ min: lo, max: hi }),
+  }), { maxLength: 120 }) as fc.Arbitrary<Op[]>;
+
+  it("binary heap: top key is the largest key (property; reference: a scan of a plain list)", () => {
+    const n = 12;
+    const h = new MaxHeap(n);
+    fc.assert(fc.property(ops(n, -50, 50), (list) => {
+      const ref = new Map<number, number>();
+      for (const { kind, v, k } of list) {
+        if (kind === "push" && !ref.has(v)) { h.push(v, k); ref.set(v, k); }
+        if (kind === "update" && ref.has(v)) { h.update(v, k); ref.set(v, k); }
+        if (kind === "remove") { h.remove(v); ref.delete(v); }
+        if (kind === "pop" && ref.size > 0) { const u = h.pop(); expect(ref.get(u)).toBe(Math.max(...ref.values())); ref.delete(u); }
+        if (kind === "clear") { h.clear(); ref.clear(); }
+        expect(h.size).toBe(ref.size);
+        if (ref.size > 0) expect(h.topKey()).toBe(Math.max(...ref.values()));
+      }
+      h.clear();
+    }), { numRuns: 300 });
+  });
+
+  it("separator FM keeps a separator, true weights, and ends no worse than it started (property, unit and heavy vertex weights)", () => {
+    const small = fc.integer({ min: 2, max: 40 }).chain((n) => fc.tuple(
+      fc.constant(n), fc.array(fc.tuple(fc.nat(n - 1), fc.nat(n - 1)), { maxLength: 3 * n }),
+      fc.array(fc.boolean(), { minLength: n, maxLength: n }), fc.array(fc.integer({ min: 1, max: 40 }), { minLength: n, maxLength: n }), fc.boolean()));
+    const fm = fmWork(40, 300);
+    const cover = coverWork(40);
+    fc.assert(fc.property(small, ([n, edges, side, weights, unit]) => {
+      const plain = graphOf(n, (e) => { for (const [a, b] of edges) e(a, b); });
+      const g = weightedGraph(plain, unit ? undefined : Int32Array.from(weights));
+      const label = Int8Array.from(side, (s) => (s ? 1 : 0));
+      vertexSeparatorFromCut(g, label, cover);
+      const st = separatorState(g, label);
+      const maxPart = Math.ceil(0.6 * g.totalWeight) + g.maxVertexWeight;
+      const score = (w: readonly number[]) => [Math.max(0, w[0] - maxPart, w[1] - maxPart), w[2]];
+      const before = score(st.weight);
+      refineSeparator(g, st, maxPart, 8, fm);
+      const recount = [0, 0, 0]; // outside reference: the weights recounted from the labels
+      for (let v = 0; v < n; v++) {
+        recount[label[v]] += g.vertexWeight[v];
+        for (let p = plain.offsets[v]; p < plain.offsets[v + 1]; p++) expect(label[v] + label[plain.neighbours[p]]).not.toBe(1);
+      }
+      expect(st.weight).toEqual(recount);
+      const after = score(st.weight);
+      expect(after[0] < before[0] || (after[0] === before[0] && after[1] <= before[1])).toBe(true);
+      expect(fm.moved.every((x) => x === 0)).toBe(true);
+    }), { numRuns: 300 });
   });
 });
 

@@ -22,6 +22,8 @@ export interface Bisection {
 /** Workspace for graphs of up to `capacity` vertices, reused across levels and pieces. */
 export interface FmWork {
   heaps: [MaxHeap, MaxHeap];
+  /** Move log of the separator passes (pairs vertex, previous label), grown on demand. */
+  log: Int32Array;
   moved: Uint8Array;
   moves: Int32Array;
   /** Internal and external edge weight of each vertex. */
@@ -43,7 +45,7 @@ export interface FmWork {
 /** Workspace for graphs of up to `capacity` vertices and `edges` adjacency entries. */
 export function fmWork(capacity: number, edges: number): FmWork {
   return {
-    heaps: [new MaxHeap(capacity), new MaxHeap(capacity)], moved: new Uint8Array(capacity),
+    heaps: [new MaxHeap(capacity), new MaxHeap(capacity)], log: new Int32Array(Math.max(16, capacity >> 2)), moved: new Uint8Array(capacity),
     moves: new Int32Array(capacity), id: new Int32Array(capacity), ed: new Int32Array(capacity),
     boundary: new Int32Array(capacity), boundaryPos: new Int32Array(capacity).fill(-1), boundaryCount: 0,
     separator: [new Int32Array(capacity), new Int32Array(capacity)], mark: new Uint8Array(capacity),

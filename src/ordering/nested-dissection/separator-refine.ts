@@ -41,13 +41,12 @@ function pushBoth(g: WGraph, label: Int8Array, v: number, heaps: FmWork["heaps"]
 
 /** Runs up to `passes` separator-refinement passes in place. */
 export function refineSeparator(g: WGraph, st: SeparatorState, maxPart: number, passes: number, w: FmWork): void {
-  const log: number[] = [];
   let count = collectSeparator(g, st.label, w.separator[0]);
   for (let pass = 0; pass < passes; pass++) {
     const before = st.weight[2];
     const beforeExcess = excess(st, maxPart);
-    separatorPass(g, st, maxPart, w, log, count);
-    count = updateSeparator(st.label, w, log, count);
+    const length = separatorPass(g, st, maxPart, w, count);
+    count = updateSeparator(st.label, w, length, count);
     if (st.weight[2] >= before && excess(st, maxPart) >= beforeExcess) break;
   }
 }
@@ -63,15 +62,15 @@ function collectSeparator(g: WGraph, label: Int8Array, list: Int32Array): number
  * can be in it was in it before the pass or was touched by the pass (the log).
  * Writes it to the spare list and swaps the lists; returns its size.
  */
-function updateSeparator(label: Int8Array, w: FmWork, log: number[], count: number): number {
+function updateSeparator(label: Int8Array, w: FmWork, length: number, count: number): number {
   const [from, to] = w.separator;
-  const mark = w.mark;
+  const { mark, log } = w;
   let c = 0;
   for (let i = 0; i < count; i++) {
     const v = from[i];
     if (label[v] === 2 && mark[v] === 0) { mark[v] = 1; to[c++] = v; }
   }
-  for (let i = 0; i < log.length; i += 2) {
+  for (let i = 0; i < length; i += 2) {
     const v = log[i];
     if (label[v] === 2 && mark[v] === 0) { mark[v] = 1; to[c++] = v; }
   }
@@ -88,15 +87,17 @@ function better(st: SeparatorState, maxPart: number, bestEx: number, bestSep: nu
   return Math.abs(st.weight[0] - st.weight[1]) < bestImb;
 }
 
-function separatorPass(g: WGraph, st: SeparatorState, maxPart: number, w: FmWork, log: number[], count: number): void {
+/** One pass; returns the length of the move log (in w.log) that it leaves. */
+function separatorPass(g: WGraph, st: SeparatorState, maxPart: number, w: FmWork, count: number): number {
   const { heaps, moved } = w;
+  const offsets = g.offsets;
   const label = st.label;
   const list = w.separator[0];
   for (let i = 0; i < count; i++) {
     const v = list[i];
     pushBoth(g, label, v, heaps);
   }
-  log.length = 0;
+  let length = 0;
   const limit = patience(g.n);
   let bestEx = excess(st, maxPart);
   let bestSep = st.weight[2];
@@ -107,21 +108,32 @@ function separatorPass(g: WGraph, st: SeparatorState, maxPart: number, w: FmWork
     const t = pickTarget(g, st, maxPart, heaps);
     if (t < 0) break;
     const v = heaps[t].top();
-    moveInto(g, st, v, t, w, log);
+    const need = length + 2 * (1 + offsets[v + 1] - offsets[v]);
+    if (need > w.log.length) w.log = growLog(w.log, length, need);
+    length = moveInto(g, st, v, t, w, length);
     if (better(st, maxPart, bestEx, bestSep, bestImb)) {
       bestEx = excess(st, maxPart); bestSep = st.weight[2]; bestImb = Math.abs(st.weight[0] - st.weight[1]);
-      bestLen = log.length; sinceBest = 0;
+      bestLen = length; sinceBest = 0;
     } else sinceBest++;
   }
   heaps[0].clear();
   heaps[1].clear();
-  for (let i = log.length - 2; i >= bestLen; i -= 2) {
+  const log = w.log;
+  for (let i = length - 2; i >= bestLen; i -= 2) {
     const v = log[i];
     st.weight[label[v]] -= g.vertexWeight[v];
     label[v] = log[i + 1];
     st.weight[label[v]] += g.vertexWeight[v];
   }
-  for (let i = 0; i < log.length; i += 2) moved[log[i]] = 0;
+  for (let i = 0; i < length; i += 2) moved[log[i]] = 0;
+  return length;
+}
+
+/** A larger copy of the first `length` entries of the log. */
+function growLog(log: Int32Array, length: number, need: number): Int32Array {
+  const grown = new Int32Array(Math.max(need, 2 * log.length));
+  grown.set(log.subarray(0, length));
+  return grown;
 }
 
 /** Part to move into: the admissible top move with the larger gain, ties to the lighter part. */
@@ -138,16 +150,19 @@ function pickTarget(g: WGraph, st: SeparatorState, maxPart: number, heaps: FmWor
   return best;
 }
 
-/** Moves v from the separator into part t; neighbours in the other part join the separator. */
-function moveInto(g: WGraph, st: SeparatorState, v: number, t: number, w: FmWork, log: number[]): void {
+/**
+ * Moves v from the separator into part t; neighbours in the other part join
+ * the separator. Logs at most 1 + degree(v) pairs at w.log[length..]; returns the new length.
+ */
+function moveInto(g: WGraph, st: SeparatorState, v: number, t: number, w: FmWork, length: number): number {
   const { offsets, neighbours, vertexWeight } = g;
-  const { heaps, moved } = w;
+  const { heaps, moved, log } = w;
   const label = st.label;
   const other = 1 - t;
   heaps[0].remove(v);
   heaps[1].remove(v);
   moved[v] = 1;
-  log.push(v, 2);
+  log[length++] = v; log[length++] = 2;
   label[v] = t;
   st.weight[2] -= vertexWeight[v];
   st.weight[t] += vertexWeight[v];
@@ -158,7 +173,7 @@ function moveInto(g: WGraph, st: SeparatorState, v: number, t: number, w: FmWork
       continue;
     }
     if (label[u] !== other) continue;
-    log.push(u, other);
+    log[length++] = u; log[length++] = other;
     label[u] = 2;
     st.weight[other] -= vertexWeight[u];
     st.weight[2] += vertexWeight[u];
@@ -170,4 +185,5 @@ function moveInto(g: WGraph, st: SeparatorState, v: number, t: number, w: FmWork
       pushBoth(g, label, u, heaps);
     }
   }
+  return length;
 }
