@@ -8,22 +8,9 @@ import fc from "fast-check";
 import { minimumDegree, minimumDegreeTrusted } from "../src/ordering/minimum-degree.js";
 import { InputError } from "../src/errors.js";
 import type { Graph } from "../src/graph/types.js";
-import { eliminationFill, expectPermutation, graphFromEdges } from "./helpers/graphs.js";
+import { eliminationFill, expectPermutation, graphFromEdges, gridGraph } from "./helpers/graphs.js";
 
 
-function grid(k: number, nine = false): Graph {
-  const edges: [number, number][] = [];
-  for (let y = 0; y < k; y++) {
-    for (let x = 0; x < k; x++) {
-      const v = y * k + x;
-      if (x + 1 < k) edges.push([v, v + 1]);
-      if (y + 1 < k) edges.push([v, v + k]);
-      if (nine && x + 1 < k && y + 1 < k) edges.push([v, v + k + 1]);
-      if (nine && x > 0 && y + 1 < k) edges.push([v, v + k - 1]);
-    }
-  }
-  return graphFromEdges(k * k, edges);
-}
 
 
 
@@ -126,7 +113,7 @@ describe("minimumDegree: arena compaction", () => {
       }),
       { numRuns: 300 },
     );
-    const g = grid(40);
+    const g = gridGraph(40);
     expect([...minimumDegreeTrusted(g, Infinity, true, 0)]).toEqual([...minimumDegreeTrusted(g, Infinity, true)]);
   });
 });
@@ -153,7 +140,7 @@ describe("minimumDegree: no fill on tree patterns", () => {
 describe("minimumDegree: fill quality on grids", () => {
   it("k×k 5-point grid: below the natural ordering's closed form and close to exact minimum degree", () => {
     for (const k of [6, 10, 14, 18]) {
-      const g = grid(k);
+      const g = gridGraph(k);
       const n = k * k;
       const natural = eliminationFill(g, identity(n));
       expect(natural).toBe((n - k) * (k + 1) + 2 * k - 1); // common practice (envelope fully filled)
@@ -165,7 +152,7 @@ describe("minimumDegree: fill quality on grids", () => {
   });
 
   it("9-point grid and random sparse graphs: within 15% of exact minimum degree", () => {
-    const g9 = grid(12, true);
+    const g9 = gridGraph(12, true);
     expect(eliminationFill(g9, minimumDegree(g9))).toBeLessThanOrEqual(1.15 * eliminationFill(g9, exactMinimumDegree(g9)));
     fc.assert(
       fc.property(fc.integer({ min: 40, max: 120 }), fc.integer({ min: 1, max: 1 << 30 }), (n, seed) => {
@@ -184,7 +171,7 @@ describe("minimumDegree: fill quality on grids", () => {
 
 /** d unknowns per node of a 9-point k×k mesh, all unknowns of adjacent nodes coupled (elasticity-like pattern). */
 function multiDofMesh(k: number, d: number): Graph {
-  const mesh = grid(k, true);
+  const mesh = gridGraph(k, true);
   const edges: [number, number][] = [];
   for (let v = 0; v < mesh.n; v++) {
     for (let a = 0; a < d; a++) for (let b = a + 1; b < d; b++) edges.push([d * v + a, d * v + b]);
@@ -219,7 +206,7 @@ describe("minimumDegree: other patterns met in practice", () => {
     // Two disjoint copies of a grid: fill is exactly additive over the pieces for exact minimum degree
     // (definition); the approximate method must stay within the same 15% band.
     const k = 9;
-    const one = grid(k);
+    const one = gridGraph(k);
     const edges: [number, number][] = [];
     for (let v = 0; v < one.n; v++) {
       for (let p = one.offsets[v]; p < one.offsets[v + 1]; p++) edges.push([v, one.neighbours[p]], [v + one.n, one.neighbours[p] + one.n]);
@@ -232,7 +219,7 @@ describe("minimumDegree: other patterns met in practice", () => {
 describe("minimumDegree: dense rows and bad input", () => {
   it("rows above the threshold go last, in increasing index", () => {
     const k = 12; // n = 146, default threshold 10·sqrt(146) ≈ 120.8 < 144
-    const base = grid(k);
+    const base = gridGraph(k);
     const edges: [number, number][] = [];
     for (let v = 0; v < k * k; v++) {
       for (let p = base.offsets[v]; p < base.offsets[v + 1]; p++) edges.push([v, base.neighbours[p]]);
@@ -252,7 +239,7 @@ describe("minimumDegree: dense rows and bad input", () => {
     expect(() => minimumDegree(outOfRange)).toThrow(/vertex 1 lists neighbour 5/);
     const loop: Graph = { n: 2, offsets: Int32Array.of(0, 1, 1), neighbours: Int32Array.of(0) };
     expect(() => minimumDegree(loop)).toThrow(/vertex 0 lists itself/);
-    expect(() => minimumDegree(grid(3), { denseThreshold: -1 })).toThrow(InputError);
+    expect(() => minimumDegree(gridGraph(3), { denseThreshold: -1 })).toThrow(InputError);
     expect(() => minimumDegree({ n: 2, offsets: Int32Array.of(0, 1), neighbours: new Int32Array(0) })).toThrow(/offsets has length/);
   });
 });

@@ -1,7 +1,7 @@
 import fc from "fast-check";
 import { describe, expect, it } from "vitest";
 import type { Graph } from "../src/graph/types.js";
-import { expectPermutation, expectTreeConsistent, graphOf } from "./helpers/graphs.js";
+import { cubeGraph, expectPermutation, expectTreeConsistent, graphOf, gridGraph } from "./helpers/graphs.js";
 import { coordinateCut, validateCoordinates } from "../src/ordering/coordinates.js";
 import { minimumDegree } from "../src/ordering/minimum-degree.js";
 import { Int32Arena } from "../src/ordering/nested-dissection/arena.js";
@@ -14,22 +14,6 @@ import { inducedSubgraph, weightedGraph } from "../src/ordering/nested-dissectio
 import { countFill } from "../src/symbolic/index.js";
 
 // ---------- graphs ----------
-const grid2 = (k: number, nine = false): Graph => graphOf(k * k, (e) => {
-  for (let i = 0; i < k; i++) for (let j = 0; j < k; j++) {
-    const v = i * k + j;
-    if (i + 1 < k) e(v, v + k);
-    if (j + 1 < k) e(v, v + 1);
-    if (nine && i + 1 < k && j + 1 < k) { e(v, v + k + 1); e(v + 1, v + k); }
-  }
-});
-const grid3 = (k: number): Graph => graphOf(k * k * k, (e) => {
-  for (let v = 0; v < k * k * k; v++) {
-    const x = v % k, y = Math.floor(v / k) % k, z = Math.floor(v / (k * k));
-    if (x + 1 < k) e(v, v + 1);
-    if (y + 1 < k) e(v, v + k);
-    if (z + 1 < k) e(v, v + k * k);
-  }
-});
 const star = (n: number) => graphOf(n, (e) => { for (let i = 1; i < n; i++) e(0, i); });
 const path = (n: number) => graphOf(n, (e) => { for (let i = 1; i < n; i++) e(i - 1, i); });
 const clique = (n: number) => graphOf(n, (e) => { for (let i = 0; i < n; i++) for (let j = 0; j < i; j++) e(i, j); });
@@ -69,13 +53,13 @@ describe("nested dissection: valid orderings on any graph", () => {
   });
 
   it("is deterministic for a seed and varies with it", () => {
-    const g = grid2(60);
+    const g = gridGraph(60);
     expect(nd(g, 7).permutation).toEqual(nd(g, 7).permutation);
     expect(nd(g, 7).permutation).not.toEqual(nd(g, 8).permutation);
   });
 
   it("respects vertex weights (a heavy half is not split evenly by count)", () => {
-    const g = grid2(40);
+    const g = gridGraph(40);
     const w = new Int32Array(g.n).fill(1);
     for (let v = 0; v < g.n; v++) if (v % 40 < 10) w[v] = 10;
     const r = nestedDissection(g, { orderLeaf: leafOrder, vertexWeights: w, leafSize: 64 });
@@ -99,7 +83,7 @@ describe("nested dissection: separators", () => {
   // A k×k grid is split by a line of k vertices, a k³ grid by a plane of k² (common practice);
   // the top separator found must be within 25 % of that.
   it("finds a top separator close to a grid line (2-D) and a grid plane (3-D)", () => {
-    for (const [g, bound] of [[grid2(64), 64], [grid3(14), 14 * 14]] as const) {
+    for (const [g, bound] of [[gridGraph(64), 64], [cubeGraph(14), 14 * 14]] as const) {
       const t = nd(g).separatorTree!;
       const root = t.count - 1;
       expect(t.parent[root]).toBe(-1);
@@ -111,7 +95,7 @@ describe("nested dissection: separators", () => {
 
   it("gives consistent trees with coordinate bisection, plain and refined", () => {
     const k = 50;
-    const g = grid2(k);
+    const g = gridGraph(k);
     const xy = new Float64Array(2 * g.n);
     for (let v = 0; v < g.n; v++) { xy[2 * v] = (v % k) + 0.1 * Math.sin(v); xy[2 * v + 1] = Math.floor(v / k); }
     for (const coordinateMode of ["plain", "refine"] as const) {
@@ -127,7 +111,7 @@ describe("nested dissection: fill and work", () => {
   // multiplications ≈ (829/84) k³ to leading order (from memory). We take multiplications ≈ Σ c_j²/2
   // (common practice). Loose band: lower-order terms and a non-ideal dissection both move the ratio.
   it.each([127, 255])("9-point k×k mesh, k = %i, lies within a loose band of George's leading terms", (k) => {
-    const g = grid2(k, true);
+    const g = gridGraph(k, true);
     const s = factorStats(g, nd(g).permutation);
     const storage = s.nnz / ((31 / 4) * k * k * Math.log2(k));
     const work = s.flops / 2 / ((829 / 84) * k ** 3);
@@ -139,7 +123,7 @@ describe("nested dissection: fill and work", () => {
 
   it("beats minimum degree on a 2-D 5-point grid (k = 200): no more fill, less work", () => {
     // Nested dissection is asymptotically optimal on 2-D grids (George 1973; Hoffman, Martin & Rose 1973).
-    const g = grid2(200);
+    const g = gridGraph(200);
     const a = factorStats(g, nd(g).permutation);
     const b = factorStats(g, minimumDegree(g));
     expect(a.nnz).toBeLessThanOrEqual(b.nnz * 1.02);
@@ -147,7 +131,7 @@ describe("nested dissection: fill and work", () => {
   });
 
   it("does much less work than minimum degree on a 3-D 7-point grid (k = 25)", () => {
-    const g = grid3(25);
+    const g = cubeGraph(25);
     const a = factorStats(g, nd(g).permutation);
     const b = factorStats(g, minimumDegree(g));
     expect(a.flops).toBeLessThan(0.8 * b.flops);
