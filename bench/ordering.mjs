@@ -144,6 +144,8 @@ const problems = {
   // shapes that defeat plain dissection: a tree, hubs joined to everything, a grid bordered by dense rows
   "path-1m": () => ({ A: fromEdges(1e6, (e) => { for (let v = 1; v < 1e6; v++) e(v - 1, v); }) }),
   "hubs-100k": () => ({ A: fromEdges(1e5, (e) => { for (let v = 10; v < 1e5; v++) for (let h = 0; h < 10; h++) e(h, v); }) }),
+  // a cycle of 20 with a path of 4000 hanging from each vertex, and one vertex joined to all
+  "hub-paths-80k": () => ({ A: fromEdges(80021, (e) => { for (let i = 0; i < 20; i++) { e(i, (i + 1) % 20); let prev = i; for (let j = 0; j < 4000; j++) { const v = 20 + i * 4000 + j; e(prev, v); prev = v; } } for (let v = 0; v < 80020; v++) e(80020, v); }) }),
   "bordered-300": () => ({ A: fromEdges(300 * 300 + 2, (e) => { grid2Edges(300, e); for (let v = 0; v < 300 * 300; v++) { e(90000, v); if (v % 2 === 0) e(90001, v); } }) }),
 };
 

@@ -55,8 +55,8 @@ export function minimumDegree(graph: Graph, options: MinimumDegreeOptions = {}):
  * built the graph themselves (for example the leaves of nested dissection).
  * `arenaSlack` sets the spare room of the list arena (tests use a tiny value to exercise compaction).
  * The last `halo` vertices are halo: they count in the degrees of their
- * neighbours but are never pivots, never set aside as dense and never merged
- * with the others; the result then orders only the first n − halo vertices.
+ * neighbours (unless dense: then they are dropped) but are never pivots and
+ * never merged with the others; the result orders only the first n − halo vertices.
  * @internal
  */
 export function minimumDegreeTrusted(graph: Graph, denseThreshold: number, aggressive: boolean, arenaSlack?: number, halo = 0): Int32Array {
@@ -98,7 +98,12 @@ function advanceMark(s: MdWorkspace): void {
   s.mark0 = MARK_START;
 }
 
-/** Set aside non-halo vertices of degree above the threshold; bucket the other non-halo vertices by their remaining degree. */
+/**
+ * Set aside vertices of degree above the threshold; bucket the other non-halo
+ * vertices by their remaining degree. Dense halo vertices are dropped as well
+ * (a halo vertex joined to a whole large leaf would otherwise be rescanned at
+ * every pivot) but are not part of the returned list, which is ordered last.
+ */
 function setAsideDense(s: MdWorkspace, graph: Graph, threshold: number): Int32Array {
   const { n, offsets, neighbours } = graph;
   const { degree, weight, start, size, firstHalo } = s;
@@ -109,9 +114,9 @@ function setAsideDense(s: MdWorkspace, graph: Graph, threshold: number): Int32Ar
   }
   const dense = new Int32Array(count);
   count = 0;
-  for (let j = 0; j < firstHalo; j++) {
+  for (let j = 0; j < n; j++) {
     if (offsets[j + 1] - offsets[j] <= threshold) continue;
-    dense[count++] = j;
+    if (j < firstHalo) dense[count++] = j;
     weight[j] = 0;
     start[j] = -1;
     size[j] = 0;
