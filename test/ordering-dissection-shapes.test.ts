@@ -14,12 +14,12 @@ import fc from "fast-check";
 import { describe, expect, it } from "vitest";
 import { computeOrdering } from "../src/ordering/index.js";
 import { leafMinimumDegree } from "../src/ordering/leaf-degree.js";
-import { peelHairs } from "../src/ordering/nested-dissection/hairs.js";
+import { peelHairs, treePostorder } from "../src/ordering/nested-dissection/hairs.js";
 import { nestedDissection } from "../src/ordering/nested-dissection/index.js";
 import { weightedGraph } from "../src/ordering/nested-dissection/wgraph.js";
 import { invertPermutation } from "../src/symbolic/etree.js";
 import { countFill } from "../src/symbolic/index.js";
-import { expectPermutation, expectTreeConsistent, graphOf, gridGraph } from "./helpers/graphs.js";
+import { eliminationFill, expectPermutation, expectTreeConsistent, graphOf, gridGraph, treeProblem } from "./helpers/graphs.js";
 
 /** Uniform-ish random tree: vertex i > 0 hangs from a random earlier vertex. */
 const randomTree = fc.integer({ min: 1, max: 3000 }).chain((n) => fc.tuple(
@@ -98,6 +98,40 @@ describe("nested dissection with hairs", () => {
     }), { numRuns: 200 });
   });
 
+  it("peeling a graph with tree components keeps one vertex of each tree and the exact 2-core elsewhere", () => {
+    // a triangle with a hair, the path 0–1–2, an isolated vertex, and a star
+    const g = graphOf(12, (e) => {
+      e(0, 1); e(1, 2);
+      e(3, 4); e(4, 5); e(5, 3); e(6, 3);
+      e(8, 9); e(8, 10); e(8, 11);
+    });
+    const hairs = peelHairs(weightedGraph(g))!;
+    const core = Array.from(hairs.core);
+    // the triangle is the 2-core of its component (definition); each tree component keeps exactly one vertex
+    expect(core.filter((v) => v >= 3 && v <= 6)).toEqual([3, 4, 5]);
+    expect(core.filter((v) => v <= 2)).toHaveLength(1);
+    expect(core.filter((v) => v === 7)).toEqual([7]);
+    expect(core.filter((v) => v >= 8)).toHaveLength(1);
+    const coreSet = new Set(core);
+    const component = (v: number) => (v <= 2 ? 0 : v <= 6 ? 1 : v === 7 ? 2 : 3);
+    for (let v = 0; v < 12; v++) {
+      expect(coreSet.has(hairs.root[v]), `root of ${v}`).toBe(true);
+      expect(component(hairs.root[v])).toBe(component(v));
+    }
+    expect(hairs.root[6]).toBe(3);
+  });
+
+  it("a postorder roots each tree at its one attached vertex (no fill into it) and refuses two", () => {
+    // the path 0–1–2–3–4 hanging from an outside vertex 5 at vertex 2
+    const path = graphOf(5, (e) => { for (let i = 1; i < 5; i++) e(i - 1, i); });
+    const order = treePostorder(weightedGraph(path), Uint8Array.from([0, 0, 1, 0, 0]))!;
+    expect(order[4]).toBe(2);
+    const withOutside = graphOf(6, (e) => { for (let i = 1; i < 5; i++) e(i - 1, i); e(2, 5); });
+    // the outside vertex last, as a separator above would be: nnz(L) = n + edges exactly (no fill; brute force)
+    expect(eliminationFill(withOutside, [...order, 5])).toBe(6 + 5);
+    expect(treePostorder(weightedGraph(path), Uint8Array.from([1, 0, 0, 0, 1]))).toBeNull();
+  });
+
   it("hairs hanging from a grid stay out of every separator, and the tree stays consistent (seeds 1–3)", () => {
     const k = 40;
     const core = k * k;
@@ -132,6 +166,18 @@ describe("nested dissection with hairs", () => {
       const root = t.count - 1;
       expect(t.end[root] - t.separatorFirst[root]).toBeGreaterThanOrEqual(k / 2);
     }
+  });
+});
+
+describe("the separator-tree check used above", () => {
+  it("rejects two roots joined by an edge and a node whose children are joined (it can fail)", () => {
+    const edge = graphOf(2, (e) => e(0, 1));
+    const twoRoots = { count: 2, first: Int32Array.from([0, 1]), separatorFirst: Int32Array.from([1, 2]), end: Int32Array.from([1, 2]), parent: Int32Array.from([-1, -1]) };
+    expect(treeProblem(edge, Int32Array.from([0, 1]), twoRoots)).toMatch(/joins two roots/);
+    const path = graphOf(3, (e) => { e(0, 1); e(1, 2); });
+    const badCut = { count: 3, first: Int32Array.from([0, 1, 0]), separatorFirst: Int32Array.from([1, 2, 2]), end: Int32Array.from([1, 2, 3]), parent: Int32Array.from([2, 2, -1]) };
+    expect(treeProblem(path, Int32Array.from([0, 1, 2]), badCut)).toMatch(/crosses its separator/);
+    expect(treeProblem(path, Int32Array.from([0, 2, 1]), badCut)).toBe("");
   });
 });
 

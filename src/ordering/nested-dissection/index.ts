@@ -10,7 +10,10 @@
  * count in the degrees of the leaf's vertices (halo minimum degree: Pellegrini,
  * Roman & Amestoy 2000, "Hybridizing nested dissection and halo approximate
  * minimum degree for efficient sparse matrix ordering", Concurrency: Practice and
- * Experience 12; from memory).
+ * Experience 12; from memory). Shapes that dissection handles badly are
+ * treated first: dense rows are set aside and numbered last (dense.ts), forest
+ * pieces are postordered and trees hanging from the input graph are kept out
+ * of the cuts (hairs.ts).
  */
 import { AbortedError } from "../../errors.js";
 import type { Graph } from "../../graph/types.js";
@@ -138,9 +141,9 @@ function setAsideDense(s: State, whole: WGraph): { g: WGraph; ids: Int32Array; r
   return { g: inducedSubgraph(whole, ids, s.localOf), ids, root: addNode(s, 0, n - dense.length, n, -1) };
 }
 
-/** Input hairs of g (vertex ids `ids` among n) as a map over all n ids; null when there are none. */
+/** Input hairs of g (vertex ids `ids` among n) as a map over all n ids; null when there are none or g is a forest (all postordered). */
 function hairRoots(g: WGraph, ids: Int32Array, n: number): Int32Array | null {
-  const hairs = peelHairs(g);
+  const hairs = isForest(g) ? null : peelHairs(g);
   if (hairs === null) return null;
   const root = new Int32Array(n);
   for (let v = 0; v < n; v++) root[v] = v;
@@ -156,7 +159,7 @@ function addNode(s: State, first: number, sepFirst: number, end: number, parent:
 function processPiece(s: State, piece: Piece): void {
   const g = piece.graph;
   if (isForest(g)) {
-    placeLeaf(s, piece, treePostorder(g, attachedVertices(s, piece)));
+    placeLeaf(s, piece, treePostorder(g, attachedVertices(s, piece)) ?? undefined);
     return;
   }
   if (piece.leaf || g.n <= s.leafSize) {
@@ -179,19 +182,15 @@ function processPiece(s: State, piece: Piece): void {
   pushComponents(s, g, piece.ids, label, 1, mid, node);
 }
 
-/**
- * The vertices of the piece with neighbours outside it (in separators or set
- * aside): rooted there, a tree is eliminated before the vertex that joins it
- * to the rest of the graph and adds no fill to it.
- */
-function attachedVertices(s: State, piece: Piece): Int32Array {
+/** Marks the vertices of the piece with neighbours outside it (in separators above, or set aside). */
+function attachedVertices(s: State, piece: Piece): Uint8Array {
   const { graph: g, ids } = piece;
   const { offsets } = s.top;
-  const out: number[] = [];
+  const attached = new Uint8Array(g.n);
   for (let v = 0; v < g.n; v++) {
-    if (offsets[ids[v] + 1] - offsets[ids[v]] > g.offsets[v + 1] - g.offsets[v]) out.push(v);
+    if (offsets[ids[v] + 1] - offsets[ids[v]] > g.offsets[v + 1] - g.offsets[v]) attached[v] = 1;
   }
-  return Int32Array.from(out);
+  return attached;
 }
 
 /**
@@ -294,6 +293,7 @@ function placeLeaf(s: State, piece: Piece, perm?: Int32Array): void {
   }
   let k = piece.lo;
   for (let i = 0; i < perm.length; i++) if (perm[i] < n) s.perm[k++] = piece.ids[perm[i]];
+  if (k !== piece.lo + n) throw new Error(`nested dissection: the leaf ordering returned ${k - piece.lo} of ${n} vertices`);
   s.placed += n;
   addNode(s, piece.lo, piece.lo + n, piece.lo + n, piece.parent);
 }
