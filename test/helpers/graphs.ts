@@ -105,17 +105,25 @@ export function treeProblem(g: Graph, perm: Int32Array, t: SeparatorTree): strin
   };
   if (!tiles(roots, 0, n)) return "roots do not partition 0..n";
   const owner = new Int32Array(n).fill(-1);
-  for (let i = 0; i < t.count; i++) {
-    if (childRanges[i].length === 0) continue;
-    if (!tiles(childRanges[i], t.first[i], t.separatorFirst[i])) return `node ${i}: children do not partition its range`;
-    childRanges[i].forEach(([a, b], c) => { for (let k = a; k < b; k++) owner[k] = c; });
-    for (let k = t.first[i]; k < t.separatorFirst[i]; k++) {
+  // no edge may join two children of a node, nor two roots (children of a virtual node over 0..n with no separator)
+  const crossing = (ranges: Array<[number, number]>, first: number, sepFirst: number): string => {
+    ranges.forEach(([a, b], c) => { for (let k = a; k < b; k++) owner[k] = c; });
+    for (let k = first; k < sepFirst; k++) {
       const v = perm[k];
       for (let p = g.offsets[v]; p < g.offsets[v + 1]; p++) {
         const q = pos[g.neighbours[p]];
-        if (q >= t.first[i] && q < t.separatorFirst[i] && owner[q] !== owner[k]) return `node ${i}: edge ${v}-${g.neighbours[p]} crosses its separator`;
+        if (q >= first && q < sepFirst && owner[q] !== owner[k]) return `edge ${v}-${g.neighbours[p]}`;
       }
     }
+    return "";
+  };
+  const rootProblem = crossing(roots, 0, n);
+  if (rootProblem) return `${rootProblem} joins two roots`;
+  for (let i = 0; i < t.count; i++) {
+    if (childRanges[i].length === 0) continue;
+    if (!tiles(childRanges[i], t.first[i], t.separatorFirst[i])) return `node ${i}: children do not partition its range`;
+    const problem = crossing(childRanges[i], t.first[i], t.separatorFirst[i]);
+    if (problem) return `node ${i}: ${problem} crosses its separator`;
   }
   return "";
 }
