@@ -3,8 +3,9 @@
  * Node i covers the contiguous positions [first[i], end[i]); its own separator
  * occupies [separatorFirst[i], end[i]) (empty for a leaf subdomain), and the
  * ranges of its children partition [first[i], separatorFirst[i]).
- * Nodes are listed children before parents; parent[i] = -1 for roots
- * (one root per connected component that was dissected).
+ * Nodes are listed children before parents; parent[i] = -1 for roots: one
+ * root per connected component, or, when the graph has dense rows, a single
+ * root whose separator holds them (numbered last) above all components.
  */
 export interface SeparatorTree {
   readonly count: number;

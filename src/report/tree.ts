@@ -34,7 +34,7 @@ export function separatorTreeSvg(t: SeparatorTree, n: number, width: number, max
       edges.push(`<line x1="${x(t.parent[i]).toFixed(1)}" y1="${y(t.parent[i])}" x2="${x(i).toFixed(1)}" y2="${y(i)}"/>`);
     }
     const sep = t.end[i] - t.separatorFirst[i];
-    const title = `positions ${fmt(t.first[i] + 1)}–${fmt(t.end[i])}, separator ${fmt(sep)}${ch[i].length ? "" : " (leaf subdomain: minimum degree, or a postorder for a tree)"}`;
+    const title = `positions ${fmt(t.first[i] + 1)}–${fmt(t.end[i])}, separator ${fmt(sep)}${ch[i].length ? "" : sep > 0 ? " (dense rows, numbered last)" : " (leaf subdomain: minimum degree, or a postorder for a tree)"}`;
     if (sep > 0) {
       nodes.push(`<circle cx="${x(i).toFixed(1)}" cy="${y(i)}" r="${radius(i).toFixed(1)}" fill="${depthColour(depth[i])}"><title>${esc(title)}</title></circle>`);
     } else {

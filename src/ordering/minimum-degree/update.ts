@@ -5,9 +5,9 @@
  * absorption), eliminate it together with the pivot when only the new element
  * remains (mass elimination), bound its external degree, merge
  * indistinguishable variables found by hashing, and put the survivors back
- * into the degree buckets. Halo variables (index ≥ firstHalo) go through the
- * same updates but are never mass eliminated, never merged with a non-halo
- * variable and never bucketed.
+ * into the degree buckets. Halo variables (index ≥ firstHalo) have their
+ * lists pruned like the others but are never mass eliminated, never merged
+ * with a non-halo variable and never bucketed (their degree is not kept).
  */
 import type { NewElement } from "./pivot-element.js";
 import { bucketInsert, emitMembers, joinMembers, type MdWorkspace } from "./workspace.js";

@@ -32,7 +32,7 @@ export class MdWorkspace {
   readonly elementCount: Int32Array;
   /** Supervariable weight while a variable; negated while in the current pivot element; 0 otherwise. */
   readonly weight: Int32Array;
-  /** Approximate external degree of a variable; weighted clique size of an element. */
+  /** Approximate external degree of a non-halo variable; weighted clique size of an element. */
   readonly degree: Int32Array;
   /** Degree buckets: doubly linked lists of variables by approximate degree. */
   readonly bucketHead: Int32Array;

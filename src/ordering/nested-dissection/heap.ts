@@ -8,8 +8,9 @@
  */
 export class MaxHeap {
   readonly heap: Int32Array;
-  /** Key of each vertex, and key of the vertex at each heap position. */
+  /** Key of each vertex. */
   readonly key: Int32Array;
+  /** Key of the vertex at each heap position (a copy of key[heap[i]]). */
   private readonly heapKey: Int32Array;
   readonly pos: Int32Array;
   size = 0;
