@@ -167,19 +167,32 @@ function processPiece(s: State, piece: Piece): void {
     return;
   }
   const label = cutPiece(s, piece);
-  let sepCount = 0;
-  if (label !== null) for (let v = 0; v < g.n; v++) if (label[v] === 2) sepCount++;
+  const sepCount = label === null ? 0 : separatorSize(label);
   if (label === null || sepCount === 0 || sepCount === g.n) {
     placeLeaf(s, piece);
     return;
   }
   const hi = piece.lo + g.n;
   const node = addNode(s, piece.lo, hi - sepCount, hi, piece.parent);
-  let k = hi - sepCount;
-  for (let v = 0; v < g.n; v++) if (label[v] === 2) s.perm[k++] = piece.ids[v];
+  placeSeparator(s.perm, hi - sepCount, label, piece.ids);
   s.placed += sepCount;
   const mid = pushComponents(s, g, piece.ids, label, 0, piece.lo, node);
   pushComponents(s, g, piece.ids, label, 1, mid, node);
+}
+
+// Loops over a whole piece sit in small functions of their own here and below:
+// V8 compiles a long loop on the fly, and code after such a loop in the same
+// function, compiled before it ever ran, was deoptimized on every call.
+
+function separatorSize(label: Int8Array): number {
+  let count = 0;
+  for (let v = 0; v < label.length; v++) if (label[v] === 2) count++;
+  return count;
+}
+
+/** Writes the separator's vertices (ids of the input graph) to perm from position k on. */
+function placeSeparator(perm: Int32Array, k: number, label: Int8Array, ids: Int32Array): void {
+  for (let v = 0; v < label.length; v++) if (label[v] === 2) perm[k++] = ids[v];
 }
 
 /** Marks the vertices of the piece with neighbours outside it (in separators above, or set aside). */
@@ -259,29 +272,36 @@ function findSeparator(s: State, piece: Piece): Int8Array {
  */
 function pushComponents(s: State, g: WGraph, ids: Int32Array, label: Int8Array | null, which: number, lo: number, parent: number): number {
   const { order, starts } = components(g, label, which);
-  const localOf = s.localOf;
   let batchStart = -1;
   let pos = lo;
-  const emit = (from: number, to: number, leaf: boolean): void => {
-    const verts = order.slice(from, to);
-    const sub = inducedSubgraph(g, verts, localOf);
-    const subIds = new Int32Array(verts.length);
-    for (let i = 0; i < verts.length; i++) subIds[i] = ids[verts[i]];
-    s.stack.push({ graph: sub, ids: subIds, lo: pos, parent, leaf });
-    pos += verts.length;
-  };
   for (let c = 0; c + 1 < starts.length; c++) {
     const size = starts[c + 1] - starts[c];
     if (size > s.leafSize) {
-      if (batchStart >= 0) { emit(batchStart, starts[c], true); batchStart = -1; }
-      emit(starts[c], starts[c + 1], false);
+      if (batchStart >= 0) { pos = pushPiece(s, g, ids, order.slice(batchStart, starts[c]), pos, parent, true); batchStart = -1; }
+      pos = pushPiece(s, g, ids, order.slice(starts[c], starts[c + 1]), pos, parent, false);
       continue;
     }
     if (batchStart < 0) batchStart = starts[c];
-    if (starts[c + 1] - batchStart >= s.leafSize) { emit(batchStart, starts[c + 1], true); batchStart = -1; }
+    if (starts[c + 1] - batchStart >= s.leafSize) { pos = pushPiece(s, g, ids, order.slice(batchStart, starts[c + 1]), pos, parent, true); batchStart = -1; }
   }
-  if (batchStart >= 0) emit(batchStart, starts[starts.length - 1], true);
+  if (batchStart >= 0) pos = pushPiece(s, g, ids, order.slice(batchStart, starts[starts.length - 1]), pos, parent, true);
   return pos;
+}
+
+/**
+ * Pushes the piece induced by `verts` (local ids of g) at position `pos`;
+ * returns the position after it.
+ */
+function pushPiece(s: State, g: WGraph, ids: Int32Array, verts: Int32Array, pos: number, parent: number, leaf: boolean): number {
+  s.stack.push({ graph: inducedSubgraph(g, verts, s.localOf), ids: gather(ids, verts), lo: pos, parent, leaf });
+  return pos + verts.length;
+}
+
+/** ids[verts[i]] for every i. */
+function gather(ids: Int32Array, verts: Int32Array): Int32Array {
+  const out = new Int32Array(verts.length);
+  for (let i = 0; i < verts.length; i++) out[i] = ids[verts[i]];
+  return out;
 }
 
 /** Orders a leaf piece (by the leaf ordering with its halo unless `perm` is given) and records a leaf node. */

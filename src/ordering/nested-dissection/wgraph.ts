@@ -69,9 +69,19 @@ export function inducedSubgraph(g: WGraph, vertices: Int32Array, localOf: Int32A
     offsets[i + 1] = k;
   }
   for (let i = 0; i < m; i++) localOf[vertices[i]] = -1;
-  // edges leaving the piece were counted in the bound: trim (a copy only when much was cut off)
-  const trim = (a: Int32Array): Int32Array => (k === bound ? a : 2 * k >= bound ? a.subarray(0, k) : a.slice(0, k));
-  return { n: m, offsets, neighbours: trim(neighbours), edgeWeight: trim(edgeWeight), vertexWeight, totalWeight: total, maxVertexWeight: max };
+  return {
+    n: m, offsets, neighbours: trimmed(neighbours, k), edgeWeight: trimmed(edgeWeight, k), vertexWeight, totalWeight: total, maxVertexWeight: max,
+  };
+}
+
+/**
+ * The first `used` entries of `a`: edges leaving the piece were counted in its
+ * length, so it is trimmed (copied only when much was cut off). A function of
+ * its own rather than a closure: a closure would capture the fill counter of
+ * the loops above and move it to the heap.
+ */
+function trimmed(a: Int32Array, used: number): Int32Array {
+  return used === a.length ? a : 2 * used >= a.length ? a.subarray(0, used) : a.slice(0, used);
 }
 
 /**
