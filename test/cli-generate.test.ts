@@ -6,7 +6,7 @@ import { geometricLaplacian } from "../src/generate/graphs.js";
 import { plateMesh2d } from "../src/generate/plate.js";
 import { saddle2d } from "../src/generate/saddle.js";
 import { symmetricMultiply } from "../src/matrix/symmetric.js";
-import { dense } from "./numeric-support.js";
+import { dense } from "./helpers/numeric.js";
 
 const ones = (n: number) => new Float64Array(n).fill(1);
 

@@ -11,7 +11,7 @@ import { describe, expect, it } from "vitest";
 import {
   analyze, elasticity3d, geometricLaplacian, grid2d, grid3d, plateMesh2d, saddle2d, SparseMatrix, type OrderingName,
 } from "../src/index.js";
-import { backwardError, blockDiagonal } from "./numeric-support.js";
+import { backwardError, blockDiagonal } from "./helpers/numeric.js";
 
 const ORDERINGS: OrderingName[] = ["nested-dissection", "minimum-degree", "reverse-cuthill-mckee", "natural"];
 

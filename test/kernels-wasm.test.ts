@@ -20,7 +20,7 @@ import { autoChoice, getKernels } from "../src/kernels/index.js";
 import { jsKernels } from "../src/kernels/js/index.js";
 import type { DenseKernels } from "../src/kernels/types.js";
 import { SparseMatrix } from "../src/matrix/sparse.js";
-import { backwardError } from "./numeric-support.js";
+import { backwardError } from "./helpers/numeric.js";
 import { analyze } from "../src/solver/analyze.js";
 import { STORE_BASE_BYTES, WASM32_MAX_PAGES, type WasmKernels, wasmKernelBytes, wasmKernels } from "../src/kernels/wasm/index.js";
 import { TILE_MULADDS, compileKernels, fusedText } from "../scripts/wasm-source.mjs";

@@ -17,7 +17,7 @@ import { stackSchedule, predictWorkspace } from "../src/numeric/workspace.js";
 import {
   EPS, analyse, asFull, asUpper, dense, denseBackwardError, gramPlusShift, permuteDense, randomPermutation,
   randomSpd, randomVector, readFactor, sparseSpd,
-} from "./numeric-support.js";
+} from "./helpers/numeric.js";
 import { laplacian1d } from "./helpers/patterns.js";
 
 describe("Cholesky solve on random sparse SPD matrices (property)", () => {

@@ -11,7 +11,7 @@ import {
 import { grid2d } from "../src/generate/grids.js";
 import { SparseMatrix } from "../src/matrix/sparse.js";
 import { factorize } from "../src/numeric/index.js";
-import { analyse, asFull, randomPermutation, randomSpd } from "./numeric-support.js";
+import { analyse, asFull, randomPermutation, randomSpd } from "./helpers/numeric.js";
 
 /** SPD matrix of order n with A(q,q) replaced by `d` and q decoupled from everything. */
 function withIsolated(n: number, q: number, d: number): SparseMatrix {

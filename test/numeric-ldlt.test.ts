@@ -12,7 +12,7 @@ import { describe, expect, it } from "vitest";
 import { grid2d } from "../src/generate/grids.js";
 import { SparseMatrix } from "../src/matrix/sparse.js";
 import { factorize } from "../src/numeric/index.js";
-import { EPS, analyse, asFull, dense, denseBackwardError, randomPermutation, randomSpd, rng } from "./numeric-support.js";
+import { EPS, analyse, asFull, dense, denseBackwardError, randomPermutation, randomSpd, rng } from "./helpers/numeric.js";
 
 /** [[H, Bᵀ], [B, −C]] with H, C sparse diagonally dominant SPD and B sparse random; lower triangle. */
 function quasiDefinite(n1: number, n2: number, seed: number, density = 0.15): SparseMatrix {

@@ -16,7 +16,7 @@ import { grid2d } from "../src/generate/grids.js";
 import { plateMesh2d } from "../src/generate/plate.js";
 import { SparseMatrix } from "../src/matrix/sparse.js";
 import { factorize } from "../src/numeric/index.js";
-import { EPS, analyse, backwardError, blockDiagonal, randomPermutation, randomVector, rng } from "./numeric-support.js";
+import { EPS, analyse, backwardError, blockDiagonal, randomPermutation, randomVector, rng } from "./helpers/numeric.js";
 
 
 

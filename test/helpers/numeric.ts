@@ -5,11 +5,11 @@
  */
 import fc from "fast-check";
 import { Matrix } from "ml-matrix";
-import { adjacencyGraph } from "../src/graph/adjacency.js";
-import type { DenseKernels } from "../src/kernels/types.js";
-import { SparseMatrix } from "../src/matrix/sparse.js";
-import type { NumericInput } from "../src/numeric/types.js";
-import { symbolicFactorization, type AmalgamationOptions } from "../src/symbolic/index.js";
+import { adjacencyGraph } from "../../src/graph/adjacency.js";
+import type { DenseKernels } from "../../src/kernels/types.js";
+import { SparseMatrix } from "../../src/matrix/sparse.js";
+import type { NumericInput } from "../../src/numeric/types.js";
+import { symbolicFactorization, type AmalgamationOptions } from "../../src/symbolic/index.js";
 
 export const EPS = Number.EPSILON;
 
