@@ -4,7 +4,9 @@ import type { Graph } from "../src/graph/types.js";
 import { cubeGraph, expectPermutation, expectTreeConsistent, graphOf, gridGraph } from "./helpers/graphs.js";
 import { coordinateCut, validateCoordinates } from "../src/ordering/coordinates.js";
 import { minimumDegree } from "../src/ordering/minimum-degree.js";
-import { Int32Arena } from "../src/ordering/nested-dissection/arena.js";
+import { hierarchyArenas, Int32Arena } from "../src/ordering/nested-dissection/arena.js";
+import { coarsen } from "../src/ordering/nested-dissection/coarsen.js";
+import { Rng } from "../src/ordering/nested-dissection/rng.js";
 import { nestedDissection } from "../src/ordering/nested-dissection/index.js";
 import { coverWork, SEPARATOR, vertexSeparatorFromCut } from "../src/ordering/nested-dissection/separator.js";
 import { MaxHeap } from "../src/ordering/nested-dissection/heap.js";
@@ -318,5 +320,54 @@ describe("nested dissection: coordinate cut", () => {
         before += weights[v];
       }
     }), { numRuns: 300 });
+  });
+});
+
+describe("nested dissection: 9-point grids", () => {
+  it("heavy-edge matching breaks weight ties by common neighbours: a 9-point grid pairs along its axes (reference: brute-force neighbour sets)", () => {
+    const k = 60;
+    const g = gridGraph(k, true);
+    const nb = (v: number) => new Set(g.neighbours.subarray(g.offsets[v], g.offsets[v + 1]));
+    const common = (a: number, b: number) => [...nb(a)].filter((x) => nb(b).has(x)).length;
+    const v = 30 * k + 30; // an interior vertex: axis edges share 4 neighbours, diagonal edges 2
+    expect([common(v, v + 1), common(v, v + k), common(v, v + k + 1), common(v, v + k - 1)]).toEqual([4, 4, 2, 2]);
+    for (const seed of [1, 2, 3]) {
+      const levels = coarsen(weightedGraph(g), new Rng(seed), 100, hierarchyArenas(g.n, g.neighbours.length));
+      const coarseOf = levels[0].coarseOf;
+      const first = new Int32Array(g.n).fill(-1);
+      let pairs = 0;
+      let diagonal = 0;
+      for (let u = 0; u < g.n; u++) {
+        const w = first[coarseOf[u]];
+        if (w < 0) { first[coarseOf[u]] = u; continue; }
+        pairs++;
+        if (u - w !== 1 && u - w !== k) diagonal++;
+      }
+      // ties broken at random would pair about half of them diagonally (8 equal edges, 4 diagonal)
+      expect(pairs).toBeGreaterThan(0.4 * g.n);
+      expect(diagonal).toBeLessThan(0.05 * pairs);
+    }
+  });
+
+  it("separator FM slides a straight separator of a 9-point strip towards balance (reference: row counts of the strip)", () => {
+    const W = 200;
+    const H = 40; // the separator (W vertices) is longer than the FM's patience on n = W·H vertices
+    const strip = graphOf(W * H, (e) => {
+      for (let y = 0; y < H; y++) for (let x = 0; x < W; x++) {
+        const v = y * W + x;
+        if (x + 1 < W) e(v, v + 1);
+        if (y + 1 < H) e(v, v + W);
+        if (x + 1 < W && y + 1 < H) { e(v, v + W + 1); e(v + 1, v + W); }
+      }
+    });
+    const g = weightedGraph(strip);
+    const label = new Int8Array(W * H);
+    for (let v = 0; v < W * H; v++) { const y = Math.floor(v / W); label[v] = y < 5 ? 0 : y === 5 ? 2 : 1; }
+    const st = separatorState(g, label);
+    expect(st.weight).toEqual([5 * W, 34 * W, W]);
+    refineSeparator(g, st, Math.ceil(0.8 * W * H), 8, fmWork(W * H, strip.neighbours.length));
+    // every move of a one-row shift leaves W or W + 2 separator vertices; a balanced straight row splits 19·W / 20·W
+    expect(st.weight[2]).toBeLessThanOrEqual(W);
+    expect(Math.min(st.weight[0], st.weight[1])).toBeGreaterThanOrEqual(15 * W);
   });
 });

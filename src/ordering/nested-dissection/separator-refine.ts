@@ -98,7 +98,9 @@ function separatorPass(g: WGraph, st: SeparatorState, maxPart: number, w: FmWork
     pushBoth(g, label, v, heaps);
   }
   let length = 0;
-  const limit = patience(g.n);
+  // at least the separator's length: shifting a straight separator of a 9-point
+  // grid by one layer costs 2 at its first move and regains it only at its last
+  const limit = Math.max(patience(g.n), count);
   let bestEx = excess(st, maxPart);
   let bestSep = st.weight[2];
   let bestImb = Math.abs(st.weight[0] - st.weight[1]);
