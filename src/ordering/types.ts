@@ -4,7 +4,7 @@
  * occupies [separatorFirst[i], end[i]) (empty for a leaf subdomain), and the
  * ranges of its children partition [first[i], separatorFirst[i]).
  * Nodes are listed children before parents; parent[i] = -1 for roots: one
- * root per connected component, or, when the graph has dense rows, a single
+ * root per connected component, or, when dense rows were set aside, a single
  * root whose separator holds them (numbered last) above all components.
  */
 export interface SeparatorTree {

@@ -1,20 +1,33 @@
 /**
- * Dense rows set aside. A vertex joined to a large part of the graph (a global
- * constraint, a ground node, a bordering row) lies in every separator anyway,
- * and it defeats coarsening: no matching shrinks a star. Such vertices are
- * taken out before dissection and numbered last, as minimum degree does with
- * its dense rows (Amestoy, Davis & Duff 1996, SIAM J. Matrix Anal. Appl. 17(4));
- * the threshold max(16, 10·√n) is minimum degree's default here.
+ * Dense rows set aside. A vertex joined to a large part of the graph (a hub, a
+ * ground node) defeats coarsening when the rest of the graph is tree-like: no
+ * matching shrinks a star. Such vertices are then taken out before dissection
+ * and numbered last, as minimum degree does with its dense rows (Amestoy,
+ * Davis & Duff 1996, SIAM J. Matrix Anal. Appl. 17(4)); the threshold
+ * max(16, 10·√n) is minimum degree's default here. When the rest is a mesh
+ * (average degree 3 or more) coarsening works, and keeping the rows in the
+ * graph measured 2–8 % fewer flops on 2-D, 3-D and triangle meshes bordered by
+ * two dense rows (seeds 1–4 or 1–8), so they stay.
  */
 import { defaultDenseThreshold } from "../minimum-degree.js";
 import type { WGraph } from "./wgraph.js";
 
-/** The vertices of g with more neighbours than the dense threshold, ascending; null when there are none. */
+/**
+ * The vertices of g with more neighbours than the dense threshold, ascending,
+ * when the rest of g is tree-like (fewer than 1.5 edges per vertex); null otherwise.
+ */
 export function denseVertices(g: WGraph): Int32Array | null {
   const threshold = defaultDenseThreshold(g.n);
   let count = 0;
-  for (let v = 0; v < g.n; v++) if (g.offsets[v + 1] - g.offsets[v] > threshold) count++;
+  let denseEntries = 0;
+  for (let v = 0; v < g.n; v++) {
+    const d = g.offsets[v + 1] - g.offsets[v];
+    if (d > threshold) { count++; denseEntries += d; }
+  }
   if (count === 0) return null;
+  // entries among the rest: all entries minus both ends of every edge at a dense vertex (edges between two dense vertices are subtracted twice: a lower bound)
+  const restEntries = g.neighbours.length - 2 * denseEntries;
+  if (restEntries >= 3 * (g.n - count)) return null;
   const dense = new Int32Array(count);
   for (let v = 0, k = 0; v < g.n; v++) if (g.offsets[v + 1] - g.offsets[v] > threshold) dense[k++] = v;
   return dense;

@@ -11,9 +11,9 @@
  * Roman & Amestoy 2000, "Hybridizing nested dissection and halo approximate
  * minimum degree for efficient sparse matrix ordering", Concurrency: Practice and
  * Experience 12; from memory). Shapes that dissection handles badly are
- * treated first: dense rows are set aside and numbered last (dense.ts), forest
- * pieces are postordered and trees hanging from the input graph are kept out
- * of the cuts (hairs.ts).
+ * treated first: dense rows over a tree-like rest are set aside and numbered
+ * last (dense.ts), forest pieces are postordered and trees hanging from the
+ * input graph are kept out of the cuts (hairs.ts).
  */
 import { AbortedError } from "../../errors.js";
 import type { Graph } from "../../graph/types.js";
