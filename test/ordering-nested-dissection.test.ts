@@ -3,6 +3,7 @@ import { describe, expect, it } from "vitest";
 import type { Graph } from "../src/graph/types.js";
 import { cubeGraph, expectPermutation, expectTreeConsistent, graphOf, gridGraph } from "./helpers/graphs.js";
 import { coordinateCut, validateCoordinates } from "../src/ordering/coordinates.js";
+import { leafMinimumDegree } from "../src/ordering/leaf-degree.js";
 import { minimumDegree } from "../src/ordering/minimum-degree.js";
 import { hierarchyArenas, Int32Arena } from "../src/ordering/nested-dissection/arena.js";
 import { coarsen } from "../src/ordering/nested-dissection/coarsen.js";
@@ -21,7 +22,7 @@ const path = (n: number) => graphOf(n, (e) => { for (let i = 1; i < n; i++) e(i 
 const clique = (n: number) => graphOf(n, (e) => { for (let i = 0; i < n; i++) for (let j = 0; j < i; j++) e(i, j); });
 
 // ---------- checks ----------
-const leafOrder = (g: Graph) => minimumDegree(g);
+const leafOrder = (g: Graph, halo: number) => leafMinimumDegree(g, undefined, halo);
 const nd = (g: Graph, seed = 1, leafSize?: number) => nestedDissection(g, { orderLeaf: leafOrder, seed, leafSize });
 
 /** nnz(L) and flops Σ c_j² from the symbolic module's column counts. */

@@ -37,8 +37,7 @@ export interface DissectionOptions {
   /**
    * Orders one leaf piece: g (sorted adjacency) is the leaf followed by its `halo`
    * vertices (neighbours outside the leaf, numbered after it; only their edges to
-   * the leaf are listed). Returns new → old for the g.n − halo leaf vertices; an
-   * order of all of g is accepted too (its halo entries are skipped).
+   * the leaf are listed). Returns new → old for the g.n − halo leaf vertices.
    */
   orderLeaf: (g: Graph, halo: number) => Int32Array;
   seed?: number;
@@ -311,9 +310,8 @@ function placeLeaf(s: State, piece: Piece, perm?: Int32Array): void {
     const { graph, halo } = leafWithHalo(s, piece.ids);
     perm = s.o.orderLeaf(graph, halo);
   }
-  let k = piece.lo;
-  for (let i = 0; i < perm.length; i++) if (perm[i] < n) s.perm[k++] = piece.ids[perm[i]];
-  if (k !== piece.lo + n) throw new Error(`nested dissection: the leaf ordering returned ${k - piece.lo} of ${n} vertices`);
+  if (perm.length !== n) throw new Error(`nested dissection: the leaf ordering returned ${perm.length} of ${n} vertices`);
+  s.perm.set(gather(piece.ids, perm), piece.lo);
   s.placed += n;
   addNode(s, piece.lo, piece.lo + n, piece.lo + n, piece.parent);
 }
