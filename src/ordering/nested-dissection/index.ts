@@ -217,32 +217,47 @@ function attachedVertices(s: State, piece: Piece): Uint8Array {
  */
 function cutPiece(s: State, piece: Piece): Int8Array | null {
   const { graph: g, ids } = piece;
-  const hairRoot = s.hairRoot;
-  let hairs = 0;
-  if (hairRoot !== null) for (let v = 0; v < g.n; v++) if (hairRoot[ids[v]] !== ids[v]) hairs++;
-  if (hairs === 0) return findSeparator(s, piece);
-  if (g.n - hairs <= s.leafSize) return null;
-  const core = new Int32Array(g.n - hairs);
-  const at = s.coreAt;
-  for (let v = 0, c = 0; v < g.n; v++) if (hairRoot![ids[v]] === ids[v]) { at[ids[v]] = c; core[c++] = v; }
+  const core = s.hairRoot === null ? null : coreVertices(s.hairRoot, ids);
+  if (core === null || core.length === g.n) return findSeparator(s, piece);
+  if (core.length <= s.leafSize) return null;
+  const graph = coreGraph(s, piece, core);
+  return spreadToHairs(s, ids, findSeparator(s, { ...piece, graph, ids: gather(ids, core) }), graph.vertexWeight);
+}
+
+/** The piece's vertices (local ids, ascending) that are not input hairs. */
+function coreVertices(hairRoot: Int32Array, ids: Int32Array): Int32Array {
+  let count = 0;
+  for (let v = 0; v < ids.length; v++) if (hairRoot[ids[v]] === ids[v]) count++;
+  const core = new Int32Array(count);
+  for (let v = 0, c = 0; v < ids.length; v++) if (hairRoot[ids[v]] === ids[v]) core[c++] = v;
+  return core;
+}
+
+/** The subgraph of the core, each hair's weight added to the vertex it hangs from; sets s.coreAt for the core. */
+function coreGraph(s: State, piece: Piece, core: Int32Array): WGraph {
+  const { graph: g, ids } = piece;
+  const hairRoot = s.hairRoot!, at = s.coreAt;
+  for (let i = 0; i < core.length; i++) at[ids[core[i]]] = i;
   const induced = inducedSubgraph(g, core, s.localOf);
   const weight = induced.vertexWeight;
-  for (let v = 0; v < g.n; v++) if (hairRoot![ids[v]] !== ids[v]) weight[at[hairRoot![ids[v]]]] += g.vertexWeight[v];
+  for (let v = 0; v < g.n; v++) if (hairRoot[ids[v]] !== ids[v]) weight[at[hairRoot[ids[v]]]] += g.vertexWeight[v];
   let max = 0;
   for (let i = 0; i < core.length; i++) if (weight[i] > max) max = weight[i];
-  const coreIds = new Int32Array(core.length);
-  for (let i = 0; i < core.length; i++) coreIds[i] = ids[core[i]];
-  const graph: WGraph = { ...induced, totalWeight: g.totalWeight, maxVertexWeight: max };
-  const coreLabel = findSeparator(s, { ...piece, graph, ids: coreIds });
+  return { ...induced, totalWeight: g.totalWeight, maxVertexWeight: max };
+}
+
+/** Labels of the whole piece from the core's: a hair takes its root's part, or the lighter part when the root is in the separator. */
+function spreadToHairs(s: State, ids: Int32Array, coreLabel: Int8Array, weight: Int32Array): Int8Array {
+  const hairRoot = s.hairRoot!, at = s.coreAt;
   let w0 = 0;
   let w1 = 0;
-  for (let i = 0; i < core.length; i++) {
+  for (let i = 0; i < coreLabel.length; i++) {
     if (coreLabel[i] === 0) w0 += weight[i]; else if (coreLabel[i] === 1) w1 += weight[i];
   }
-  const label = new Int8Array(g.n);
-  for (let v = 0; v < g.n; v++) {
-    const l = coreLabel[at[hairRoot![ids[v]]]];
-    label[v] = hairRoot![ids[v]] === ids[v] || l !== 2 ? l : w0 <= w1 ? 0 : 1;
+  const label = new Int8Array(ids.length);
+  for (let v = 0; v < ids.length; v++) {
+    const l = coreLabel[at[hairRoot[ids[v]]]];
+    label[v] = hairRoot[ids[v]] === ids[v] || l !== 2 ? l : w0 <= w1 ? 0 : 1;
   }
   return label;
 }
