@@ -73,7 +73,10 @@ interface State {
   leafSize: number;
   bisect: BisectOptions;
   work: FmWork;
-  /** All -1 between uses: the old → new map of inducedSubgraph. */
+  /**
+   * All -1 between uses: a vertex → position map, for inducedSubgraph (ids of
+   * the graph being split) and for the leaf + halo graph (ids of the input graph).
+   */
   localOf: Int32Array;
   /** Input hairs: the vertex each hangs from (itself for the others); null when there are none. */
   hairRoot: Int32Array | null;
@@ -81,8 +84,6 @@ interface State {
   coreAt: Int32Array;
   /** The input graph; the pieces' ids are its vertices. */
   top: Graph;
-  /** All -1 between uses: position of a top vertex in the leaf + halo graph being built. */
-  leafAt: Int32Array;
   /** All 0 between uses: edges to the leaf of each halo vertex, then fill cursors. */
   haloCount: Int32Array;
 }
@@ -107,7 +108,7 @@ export function nestedDissection(graph: Graph, o: DissectionOptions): OrderingRe
     perm: new Int32Array(n), first: [], sepFirst: [], end: [], parent: [], stack: [], placed: 0,
     rng: new Rng(o.seed ?? 1), o, leafSize: o.leafSize ?? defaultLeafSize(n), bisect: { ...defaultBisectOptions, ...o.bisect }, work: fmWork(n, graph.neighbours.length),
     localOf: new Int32Array(n).fill(-1), hairRoot: null, coreAt: new Int32Array(0),
-    top: graph, leafAt: new Int32Array(n).fill(-1), haloCount: new Int32Array(n),
+    top: graph, haloCount: new Int32Array(n),
   };
   const { g, ids, root } = setAsideDense(s, weightedGraph(graph, o.vertexWeights));
   s.hairRoot = hairRoots(g, ids, n);
@@ -338,7 +339,7 @@ function placeLeaf(s: State, piece: Piece, perm?: Int32Array): void {
  */
 function leafWithHalo(s: State, ids: Int32Array): { graph: Graph; halo: number } {
   const { offsets, neighbours } = s.top;
-  const { leafAt: at, haloCount: count } = s;
+  const { localOf: at, haloCount: count } = s;
   const n = ids.length;
   let halo = 0, leafEntries = 0, haloEntries = 0;
   for (let i = 0; i < n; i++) at[ids[i]] = i;
