@@ -23,6 +23,31 @@ export function measure(fn, runs = 3) {
   return { wall: median(wall), cpu: median(cpu), result };
 }
 
+/**
+ * CPU seconds of one breadth-first sweep over graph g (median of 7): the
+ * cheapest pass that touches every vertex and adjacency entry, used as the
+ * unit in which ordering times are compared across machines and loads.
+ */
+export function sweepSeconds(g) {
+  const order = new Int32Array(g.n), seen = new Uint8Array(g.n);
+  const sweep = () => {
+    seen.fill(0);
+    for (let s = 0; s < g.n; s++) {
+      if (seen[s]) continue;
+      let head = 0, tail = 1;
+      order[0] = s; seen[s] = 1;
+      while (head < tail) {
+        const v = order[head++];
+        for (let p = g.offsets[v]; p < g.offsets[v + 1]; p++) {
+          const u = g.neighbours[p];
+          if (!seen[u]) { seen[u] = 1; order[tail++] = u; }
+        }
+      }
+    }
+  };
+  return Math.max(1e-6, measure(sweep, 7).cpu);
+}
+
 /** 5-point Laplacian on a k×k grid, lower triangle. */
 export function grid2d(k) {
   const n = k * k, nz = n + 2 * k * (k - 1);

@@ -4,7 +4,9 @@
 // Prints nnz(L) (diagonal included), flops = Σ c_j² (design.md conventions),
 // the ordering's wall and process-CPU seconds (median of RUNS runs of the
 // ordering alone; the machine is shared, so CPU time is the steadier figure),
-// and flops relative to minimum degree. nnz/flops come from analyze() with the
+// flops relative to minimum degree, and "sweeps": the ordering's CPU time in
+// units of one breadth-first sweep of the same graph (median of 7), a measure
+// that carries across machines and loads. nnz/flops come from analyze() with the
 // permutation handed in; natural and RCM are skipped where their factor would
 // not fit in memory.
 //
@@ -12,7 +14,7 @@
 //   RUNS=3 node bench/ordering.mjs grid2-300 grid3-40   # a selection
 //   ONLY=minimum-degree,nested-dissection RUNS=3 node bench/ordering.mjs grid2-1000   # some orderings only
 import { SparseMatrix, adjacencyGraph, analyze, computeOrdering } from "../dist/index.js";
-import { measure } from "./common.mjs";
+import { measure, sweepSeconds } from "./common.mjs";
 
 const RUNS = Number(process.env.RUNS ?? 1);
 const SEED = Number(process.env.SEED ?? 1);
@@ -164,6 +166,7 @@ for (const name of selected) {
     runs.push(["nd+coordinates(plain)", { ordering: "nested-dissection", seed: SEED, coordinates: xy, coordinateMode: "plain" }]);
   }
   let mdFlops = NaN;
+  const sweep = sweepSeconds(graph);
   for (const [label, options] of runs) {
     if (ONLY && !ONLY.has(label)) continue;
     const m = measure(() => computeOrdering(graph, options), RUNS);
@@ -171,7 +174,7 @@ for (const name of selected) {
     if (label === "minimum-degree") mdFlops = stats.flops;
     const row = {
       problem: name, n: A.ncols, ordering: label, nnzL: stats.nnzL.toExponential(3), flops: stats.flops.toExponential(3),
-      "vs MD flops": Number.isNaN(mdFlops) ? "-" : (stats.flops / mdFlops).toFixed(3), "wall s": m.wall.toFixed(2), "cpu s": m.cpu.toFixed(2),
+      "vs MD flops": Number.isNaN(mdFlops) ? "-" : (stats.flops / mdFlops).toFixed(3), "wall s": m.wall.toFixed(2), "cpu s": m.cpu.toFixed(2), sweeps: (m.cpu / sweep).toFixed(0),
     };
     rows.push(row);
     console.log(Object.values(row).join("\t"));
