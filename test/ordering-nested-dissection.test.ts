@@ -11,6 +11,7 @@ import { Rng } from "../src/ordering/nested-dissection/rng.js";
 import { nestedDissection } from "../src/ordering/nested-dissection/index.js";
 import { coverWork, SEPARATOR, vertexSeparatorFromCut } from "../src/ordering/nested-dissection/separator.js";
 import { MaxHeap } from "../src/ordering/nested-dissection/heap.js";
+import { defaultBisectOptions, multilevelSeparator } from "../src/ordering/nested-dissection/multilevel.js";
 import { evaluate, fmWork } from "../src/ordering/nested-dissection/refine.js";
 import { refineSeparator, separatorState } from "../src/ordering/nested-dissection/separator-refine.js";
 import { inducedSubgraph, weightedGraph } from "../src/ordering/nested-dissection/wgraph.js";
@@ -94,6 +95,48 @@ describe("nested dissection: separators", () => {
       expect(size).toBeGreaterThan(0);
       expect(size).toBeLessThanOrEqual(1.25 * bound);
     }
+  });
+
+  // The refinement uses no random numbers, so with the same seed the first start gives the
+  // same separator with or without a second one, and keeping the lighter of two can only
+  // help: a check of the bookkeeping between the two runs (definition of the choice).
+  it("a second start never gives a heavier separator than the first start alone, and both are separators (property, grids with holes)", () => {
+    fc.assert(fc.property(fc.integer({ min: 25, max: 40 }), fc.integer({ min: 1, max: 1000 }), fc.double({ min: 0, max: 0.3, noNaN: true }), (k, seed, holes) => {
+      const mask = new Rng(seed);
+      const open = Uint8Array.from({ length: k * k }, () => (mask.below(1000) >= 1000 * holes ? 1 : 0));
+      const g = weightedGraph(graphOf(k * k, (e) => {
+        for (let v = 0; v < k * k; v++) {
+          if (!open[v]) continue;
+          if (v % k + 1 < k && open[v + 1]) e(v, v + 1);
+          if (v + k < k * k && open[v + k]) e(v, v + k);
+        }
+      }));
+      const weight = (label: Int8Array) => separatorState(g, label).weight[2];
+      const one = multilevelSeparator(g, new Rng(seed), { ...defaultBisectOptions, secondStart: 0 }, fmWork(g.n, g.neighbours.length));
+      const two = multilevelSeparator(g, new Rng(seed), { ...defaultBisectOptions, secondStartAbove: 0 }, fmWork(g.n, g.neighbours.length));
+      for (const label of [one, two]) {
+        for (let v = 0; v < g.n; v++) for (let p = g.offsets[v]; p < g.offsets[v + 1]; p++) {
+          expect(label[v] + label[g.neighbours[p]]).not.toBe(1); // no edge joins part 0 to part 1
+        }
+      }
+      expect(weight(two)).toBeLessThanOrEqual(weight(one));
+    }), { numRuns: 6 });
+  });
+
+  // A 45° staircase cutting off a corner triangle that holds a third of a k×k 5-point grid
+  // needs one vertex per row it crosses, about √(2/3)·k ≈ 0.82k (geometry, closed form):
+  // lighter than the middle line of k vertices and within the allowed imbalance. The second
+  // start, grown to 35 % of the weight, finds such cuts; the first alone mostly slides to the
+  // middle (3 of these 8 seeds lighter than k without it, measured 2026-12-02).
+  it("often cuts a corner off a grid, more lightly than the middle line (seeds 1–8)", () => {
+    const k = 100, g = gridGraph(k);
+    const sizes = [1, 2, 3, 4, 5, 6, 7, 8].map((seed) => {
+      const t = nd(g, seed).separatorTree!;
+      return t.end[t.count - 1] - t.separatorFirst[t.count - 1];
+    });
+    for (const size of sizes) expect(size).toBeLessThanOrEqual(k);
+    expect(sizes.filter((size) => size < k).length).toBeGreaterThanOrEqual(6);
+    expect(Math.min(...sizes)).toBeGreaterThanOrEqual(Math.floor(0.6 * k)); // no cut is much below the corner bound
   });
 
   it("gives consistent trees with coordinate bisection, plain and refined", () => {

@@ -2,21 +2,22 @@
  * Initial bisection of the coarsest graph by greedy graph growing (Karypis &
  * Kumar 1998, SIAM J. Sci. Comput. 20(1), §3.2): grow part 0 from a seed,
  * always adding the frontier vertex that lowers the edge cut most, until it
- * holds half the weight; refine each try by FM and keep the best of several seeds.
+ * holds half the weight (or another given fraction); refine each try by FM and
+ * keep the best of several seeds.
  */
 import { MaxHeap } from "./heap.js";
 import { evaluate, excess, refineBisection, type Bisection, type FmWork } from "./refine.js";
 import type { Rng } from "./rng.js";
 import type { WGraph } from "./wgraph.js";
 
-/** Grows part 0 from `seed` to half the total weight; returns the labelling. */
-function growFrom(g: WGraph, seed: number, heap: MaxHeap, rng: Rng): Int8Array {
+/** Grows part 0 from `seed` to `fraction` of the total weight; returns the labelling. */
+function growFrom(g: WGraph, seed: number, heap: MaxHeap, rng: Rng, fraction: number): Int8Array {
   const label = new Int8Array(g.n).fill(1);
-  const half = g.totalWeight / 2;
+  const target = g.totalWeight * fraction;
   let w0 = 0;
   let next = seed;
   heap.clear();
-  while (w0 < half) {
+  while (w0 < target) {
     if (heap.size > 0) next = heap.pop();
     else if (next < 0 || label[next] === 0) {
       next = anyInPart1(label, rng);
@@ -53,12 +54,15 @@ function anyInPart1(label: Int8Array, rng: Rng): number {
   return -1;
 }
 
-/** Best of `tries` grown-and-refined bisections under the part-weight bound. */
-export function initialBisection(g: WGraph, rng: Rng, tries: number, maxPart: number, work: FmWork): Bisection {
+/**
+ * Best of `tries` bisections under the part-weight bound, each grown to
+ * `fraction` of the weight (half by default) and refined.
+ */
+export function initialBisection(g: WGraph, rng: Rng, tries: number, maxPart: number, work: FmWork, fraction = 0.5): Bisection {
   const heap = work.heaps[0];
   let best: Bisection | null = null;
   for (let t = 0; t < tries; t++) {
-    const b = evaluate(g, growFrom(g, rng.below(g.n), heap, rng), work);
+    const b = evaluate(g, growFrom(g, rng.below(g.n), heap, rng, fraction), work);
     refineBisection(g, b, maxPart, 6, work);
     if (best === null || better(b, best, maxPart)) best = b;
   }

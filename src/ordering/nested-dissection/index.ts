@@ -84,6 +84,8 @@ interface State {
   coreAt: Int32Array;
   /** The input graph; the pieces' ids are its vertices. */
   top: Graph;
+  /** Total vertex weight of the input graph. */
+  wholeWeight: number;
   /** All 0 between uses: edges to the leaf of each halo vertex, then fill cursors. */
   haloCount: Int32Array;
 }
@@ -108,9 +110,11 @@ export function nestedDissection(graph: Graph, o: DissectionOptions): OrderingRe
     perm: new Int32Array(n), first: [], sepFirst: [], end: [], parent: [], stack: [], placed: 0,
     rng: new Rng(o.seed ?? 1), o, leafSize: o.leafSize ?? defaultLeafSize(n), bisect: { ...defaultBisectOptions, ...o.bisect }, work: fmWork(n, graph.neighbours.length),
     localOf: new Int32Array(n).fill(-1), hairRoot: null, coreAt: new Int32Array(0),
-    top: graph, haloCount: new Int32Array(n),
+    top: graph, wholeWeight: 0, haloCount: new Int32Array(n),
   };
-  const { g, ids, root } = setAsideDense(s, weightedGraph(graph, o.vertexWeights));
+  const whole = weightedGraph(graph, o.vertexWeights);
+  s.wholeWeight = whole.totalWeight;
+  const { g, ids, root } = setAsideDense(s, whole);
   s.hairRoot = hairRoots(g, ids, n);
   if (s.hairRoot !== null) s.coreAt = new Int32Array(n);
   pushComponents(s, g, ids, null, 0, 0, root);
@@ -273,11 +277,11 @@ function findSeparator(s: State, piece: Piece): Int8Array {
   const { graph: g, ids } = piece;
   const c = s.o.coordinates;
   const mode = s.o.coordinateMode ?? "refine";
-  if (c === undefined || mode === "ignore") return multilevelSeparator(g, s.rng, s.bisect, s.work);
+  if (c === undefined || mode === "ignore") return multilevelSeparator(g, s.rng, s.bisect, s.work, s.wholeWeight);
   const cut = coordinateCut(g, ids, c);
   if (mode === "plain") return separate(g, cut, { ...s.bisect, separatorRefinement: "none" }, s.work);
   const refined = separate(g, refineGiven(g, cut, s.bisect, s.work).label, s.bisect, s.work, true);
-  return lighter(g, refined, multilevelSeparator(g, s.rng, s.bisect, s.work));
+  return lighter(g, refined, multilevelSeparator(g, s.rng, s.bisect, s.work, s.wholeWeight));
 }
 
 /**
