@@ -51,7 +51,7 @@ export interface BisectOptions {
  * Defaults. The second start (0.35 of the weight, pieces of ≥ 1/20 of the graph and ≥ 5,000
  * vertices, so about the top five levels of the dissection) was measured over seeds 1–8
  * (flops ND ÷ MD, gmean): 2-D 300² 0.621 → 0.536, plate mesh 0.743 → 0.668, random
- * geometric 1.157 → 1.118, 3-D 40³, 9-point 255² and elasticity 30³ within ±2 %;
+ * geometric 1.157 → 1.118, 3-D 40³, 9-point 255² and elasticity3d(30) within ±2 %;
  * 1000² over seeds 1–3 0.585 → 0.553, for about 20–25 % more time. Growing to 0.3 or 0.4
  * did worse; a second start on every piece cost elasticity 16³ +6 %, and refining the
  * second start by the separator path alone did worse on elasticity.
