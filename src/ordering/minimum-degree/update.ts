@@ -17,7 +17,7 @@ export function pruneAndBound(s: MdWorkspace, me: number, el: NewElement, aggres
   const { arena, start, size, elementCount, weight, mark, degree } = s;
   const { hashHead, hashNext, hashKey } = s;
   const mark0 = s.mark0;
-  const n = s.n;
+  const mask = hashMask(s, el.end - el.first);
   for (let pm = el.first, pmEnd = el.end; pm < pmEnd; pm++) {
     const i = arena[pm];
     const p1 = start[i];
@@ -34,7 +34,7 @@ export function pruneAndBound(s: MdWorkspace, me: number, el: NewElement, aggres
       if (outside > 0 || !aggressive) {
         deg += outside;
         arena[pn++] = e;
-        hash += e;
+        hash = (hash + e) | 0;
       } else {
         start[e] = -1; // Le inside Lme: absorb e into me
         size[e] = 0;
@@ -49,7 +49,7 @@ export function pruneAndBound(s: MdWorkspace, me: number, el: NewElement, aggres
       if (w <= 0) continue; // in Lme (reached through me), merged, eliminated, or set aside
       deg += w;
       arena[pn++] = j;
-      hash += j;
+      hash = (hash + j) | 0;
     }
     if (elementCount[i] === 1 && p3 === pn && i < s.firstHalo) {
       massEliminate(s, i, el);
@@ -61,11 +61,22 @@ export function pruneAndBound(s: MdWorkspace, me: number, el: NewElement, aggres
     arena[p3] = arena[p1];
     arena[p1] = me;
     size[i] = pn - p1 + 1;
-    const key = hash % n;
+    const key = hash & mask;
     hashKey[i] = key;
     hashNext[i] = hashHead[key];
     hashHead[key] = i;
   }
+}
+
+/**
+ * Buckets used for a clique of `count` variables, as a mask: the power of two
+ * above 64·count (few collisions), capped by the table. Identical lists have
+ * equal sums, so they meet in one bucket whatever the mask, and the merges do
+ * not depend on it; a small part of the table stays in cache, unlike hash % n.
+ */
+function hashMask(s: MdWorkspace, count: number): number {
+  const want = 2 ** (32 - Math.clz32(64 * count));
+  return (want < s.hashHead.length ? want : s.hashHead.length) - 1;
 }
 
 /** Variable i touches nothing but me: it is eliminated right after me. */

@@ -20,6 +20,9 @@ import type { Graph } from "../../graph/types.js";
 /** First mark base; every stored mark is 1 (live), 0 (absorbed element) or at least this. */
 export const MARK_START = 2 ** 31;
 
+/** Most buckets of the supervariable hash table (a power of two): 256 KiB, larger cliques share buckets. */
+const HASH_TABLE_MAX = 2 ** 16;
+
 export class MdWorkspace {
   readonly n: number;
   /** Vertices firstHalo .. n−1 are halo (never ordered). */
@@ -43,7 +46,7 @@ export class MdWorkspace {
   readonly mark: Float64Array;
   /** Mark base; starts above the small-integer range so its number representation never changes. */
   mark0 = MARK_START;
-  /** Hash buckets for finding indistinguishable variables. */
+  /** Hash buckets for finding indistinguishable variables (a power of two, at most HASH_TABLE_MAX). */
   readonly hashHead: Int32Array;
   readonly hashNext: Int32Array;
   readonly hashKey: Int32Array;
@@ -78,7 +81,7 @@ export class MdWorkspace {
     this.bucketNext = new Int32Array(n);
     this.bucketPrev = new Int32Array(n);
     this.mark = new Float64Array(n).fill(1);
-    this.hashHead = new Int32Array(n).fill(-1);
+    this.hashHead = new Int32Array(Math.min(HASH_TABLE_MAX, 2 ** (32 - Math.clz32(Math.max(1, n))))).fill(-1);
     this.hashNext = new Int32Array(n);
     this.hashKey = new Int32Array(n);
     this.memberNext = new Int32Array(n).fill(-1);
