@@ -15,7 +15,7 @@ import { bucketInsert, emitMembers, joinMembers, type MdWorkspace } from "./work
 /** Prune lists of Lme's variables and compute the degree part outside Lme. */
 export function pruneAndBound(s: MdWorkspace, me: number, el: NewElement, aggressive: boolean): void {
   const { arena, start, size, elementCount, weight, mark, degree } = s;
-  const { hashHead, hashNext, hashKey } = s;
+  const { hashHead, bucketNext: hashNext, bucketPrev: hashKey } = s; // Lme's variables are out of their buckets
   const mark0 = s.mark0;
   const mask = hashMask(s, el.end - el.first);
   for (let pm = el.first, pmEnd = el.end; pm < pmEnd; pm++) {
@@ -92,7 +92,7 @@ function massEliminate(s: MdWorkspace, i: number, el: NewElement): void {
 
 /** Merge variables of Lme that have identical lists (same hash bucket, then compared). */
 export function mergeIndistinguishable(s: MdWorkspace, el: NewElement): void {
-  const { arena, start, size, elementCount, weight, mark, hashHead, hashNext, hashKey } = s;
+  const { arena, start, size, elementCount, weight, mark, hashHead, bucketNext: hashNext, bucketPrev: hashKey } = s;
   const halo = s.firstHalo;
   for (let pm = el.first, pmEnd = el.end; pm < pmEnd; pm++) {
     const i = arena[pm];

@@ -37,7 +37,11 @@ export class MdWorkspace {
   readonly weight: Int32Array;
   /** Approximate external degree of a non-halo variable; weighted clique size of an element. */
   readonly degree: Int32Array;
-  /** Degree buckets: doubly linked lists of variables by approximate degree. */
+  /**
+   * Degree buckets: doubly linked lists of variables by approximate degree.
+   * While the variables of a new clique are out of their buckets, bucketNext
+   * chains them by hash and bucketPrev holds their hash key.
+   */
   readonly bucketHead: Int32Array;
   readonly bucketNext: Int32Array;
   readonly bucketPrev: Int32Array;
@@ -48,8 +52,6 @@ export class MdWorkspace {
   mark0 = MARK_START;
   /** Hash buckets for finding indistinguishable variables (a power of two, at most HASH_TABLE_MAX). */
   readonly hashHead: Int32Array;
-  readonly hashNext: Int32Array;
-  readonly hashKey: Int32Array;
   /** Members of each supervariable as a chain, so they are emitted together. */
   readonly memberNext: Int32Array;
   readonly memberTail: Int32Array;
@@ -82,8 +84,6 @@ export class MdWorkspace {
     this.bucketPrev = new Int32Array(n);
     this.mark = new Float64Array(n).fill(1);
     this.hashHead = new Int32Array(Math.min(HASH_TABLE_MAX, 2 ** (32 - Math.clz32(Math.max(1, n))))).fill(-1);
-    this.hashNext = new Int32Array(n);
-    this.hashKey = new Int32Array(n);
     this.memberNext = new Int32Array(n).fill(-1);
     this.memberTail = new Int32Array(n);
     for (let j = 0; j < n; j++) this.memberTail[j] = j;
