@@ -79,20 +79,18 @@ export function minimumDegreeTrusted(graph: Graph, denseThreshold: number, aggre
     buildElement(s, me, el);
     externalSizes(s, el);
     pruneAndBound(s, me, el, aggressive);
-    advanceMark(s);
-    mergeIndistinguishable(s, el);
-    advanceMark(s);
+    s.mark0 += s.maxElement + 1; // past every mark0 + |Le \ Lme| written above
+    mergeIndistinguishable(s, el); // leaves mark0 past its own marks
     s.weight[me] = 0;
     finishElement(s, me, el, atEnd);
+    if (s.mark0 > s.markLimit) resetMarks(s);
   }
   for (let k = 0; k < dense.length; k++) s.order[s.ordered++] = dense[k];
   return s.order;
 }
 
-/** Move the mark base past every value written this round; reset rarely (2^50 headroom). */
-function advanceMark(s: MdWorkspace): void {
-  s.mark0 += s.n + 1;
-  if (s.mark0 < 2 ** 50) return;
+/** Marks are about to leave the int32 range: set every live mark back to 1 and restart the base. */
+function resetMarks(s: MdWorkspace): void {
   const mark = s.mark;
   for (let j = 0; j < s.n; j++) if (mark[j] !== 0) mark[j] = 1;
   s.mark0 = MARK_START;

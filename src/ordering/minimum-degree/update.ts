@@ -151,6 +151,7 @@ export function finishElement(s: MdWorkspace, me: number, el: NewElement, builtA
   const len = dst - el.first;
   s.size[me] = len;
   s.degree[me] = dme;
+  if (dme > s.maxElement) s.maxElement = dme;
   if (len === 0) {
     s.start[me] = -1;
     s.mark[me] = 0;

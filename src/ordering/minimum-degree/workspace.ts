@@ -18,7 +18,7 @@
 import type { Graph } from "../../graph/types.js";
 
 /** First mark base; every stored mark is 1 (live), 0 (absorbed element) or at least this. */
-export const MARK_START = 2 ** 31;
+export const MARK_START = 2;
 
 /** Most buckets of the supervariable hash table (a power of two): 256 KiB, larger cliques share buckets. */
 const HASH_TABLE_MAX = 2 ** 16;
@@ -46,10 +46,16 @@ export class MdWorkspace {
   readonly bucketNext: Int32Array;
   readonly bucketPrev: Int32Array;
   minDegree = 0;
-  /** Marks: |Le \ Lme| + mark for elements during an update, list marks for supervariable tests. */
-  readonly mark: Float64Array;
-  /** Mark base; starts above the small-integer range so its number representation never changes. */
+  /** Marks: |Le \ Lme| + mark0 for elements during an update, list marks for supervariable tests. */
+  readonly mark: Int32Array;
+  /**
+   * Mark base. A round writes marks below mark0 + maxElement + |Lme| ≤ mark0 + 2n + 1,
+   * so the marks are reset once mark0 passes markLimit.
+   */
   mark0 = MARK_START;
+  readonly markLimit: number;
+  /** Largest weighted clique size of any element so far (bounds degree[e] of every element). */
+  maxElement = 0;
   /** Hash buckets for finding indistinguishable variables (a power of two, at most HASH_TABLE_MAX). */
   readonly hashHead: Int32Array;
   /** Members of each supervariable as a chain, so they are emitted together. */
@@ -82,7 +88,8 @@ export class MdWorkspace {
     this.bucketHead = new Int32Array(n + 1).fill(-1);
     this.bucketNext = new Int32Array(n);
     this.bucketPrev = new Int32Array(n);
-    this.mark = new Float64Array(n).fill(1);
+    this.mark = new Int32Array(n).fill(1);
+    this.markLimit = 2 ** 31 - 1 - 2 * (n + 1);
     this.hashHead = new Int32Array(Math.min(HASH_TABLE_MAX, 2 ** (32 - Math.clz32(Math.max(1, n))))).fill(-1);
     this.memberNext = new Int32Array(n).fill(-1);
     this.memberTail = new Int32Array(n);
