@@ -75,8 +75,8 @@ export function pruneAndBound(s: MdWorkspace, me: number, el: NewElement, aggres
  * not depend on it; a small part of the table stays in cache, unlike hash % n.
  */
 function hashMask(s: MdWorkspace, count: number): number {
-  const want = 2 ** (32 - Math.clz32(64 * count));
-  return (want < s.hashHead.length ? want : s.hashHead.length) - 1;
+  const table = s.hashHead.length;
+  return (count < table >> 6 ? 1 << (32 - Math.clz32(count << 6)) : table) - 1;
 }
 
 /** Variable i touches nothing but me: it is eliminated right after me. */
