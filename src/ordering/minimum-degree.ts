@@ -75,7 +75,7 @@ export function minimumDegreeTrusted(graph: Graph, denseThreshold: number, aggre
     const w = s.node[bme + Field.Weight];
     s.node[bme + Field.Weight] = -w;
     s.eliminated += w;
-    emitMembers(s, me);
+    emitMembers(s, me, w);
     const atEnd = s.node[bme + Field.Elements] !== 0;
     buildElement(s, me, el);
     externalSizes(s, el);

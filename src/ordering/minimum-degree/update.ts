@@ -94,7 +94,7 @@ function massEliminate(s: MdWorkspace, i: number, el: NewElement): void {
   node[bi + Field.Weight] = 0;
   node[bi + Field.Start] = -1;
   node[bi + Field.Size] = 0;
-  emitMembers(s, i);
+  emitMembers(s, i, wi);
 }
 
 /** Merge variables of Lme that have identical lists (same hash bucket, then compared). */
@@ -119,11 +119,11 @@ export function mergeIndistinguishable(s: MdWorkspace, el: NewElement): void {
       for (let b = node[ba + Field.Next]; b !== -1; b = node[b * Field.Count + Field.Next]) {
         const bb = b * Field.Count;
         if (node[bb + Field.Size] === len && node[bb + Field.Elements] === ec && (a < halo) === (b < halo) && sameMarks(s, b, mk)) {
+          joinMembers(s, a, -node[ba + Field.Weight], b, -node[bb + Field.Weight]); // weights negative inside Lme
           node[ba + Field.Weight] += node[bb + Field.Weight];
           node[bb + Field.Weight] = 0;
           node[bb + Field.Start] = -1;
           node[bb + Field.Size] = 0;
-          joinMembers(s, a, b);
           node[prev * Field.Count + Field.Next] = node[bb + Field.Next];
         } else prev = b;
       }

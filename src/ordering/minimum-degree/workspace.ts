@@ -71,7 +71,11 @@ export class MdWorkspace {
   maxElement = 0;
   /** Hash buckets for finding indistinguishable variables (a power of two, at most HASH_TABLE_MAX). */
   readonly hashHead: Int32Array;
-  /** Members of each supervariable as a chain, so they are emitted together. */
+  /**
+   * Members of each supervariable as a chain from the principal variable, as
+   * long as its weight; memberTail is the last member. Only supervariables of
+   * weight above 1 read them, so neither array is initialised.
+   */
   readonly memberNext: Int32Array;
   readonly memberTail: Int32Array;
   /** The permutation under construction (new → old) of the non-halo vertices. */
@@ -96,9 +100,8 @@ export class MdWorkspace {
     this.bucketHead = new Int32Array(n + 1).fill(-1);
     this.markLimit = 2 ** 31 - 1 - 2 * (n + 1);
     this.hashHead = new Int32Array(Math.min(HASH_TABLE_MAX, 2 ** (32 - Math.clz32(Math.max(1, n))))).fill(-1);
-    this.memberNext = new Int32Array(n).fill(-1);
+    this.memberNext = new Int32Array(n);
     this.memberTail = new Int32Array(n);
-    for (let j = 0; j < n; j++) this.memberTail[j] = j;
     this.order = new Int32Array(n - halo);
   }
 }
@@ -141,18 +144,19 @@ export function bucketRemove(s: MdWorkspace, i: number): void {
   else s.bucketHead[node[bi + Field.Degree]] = next;
 }
 
-/** Append the members of supervariable i to the order. */
-export function emitMembers(s: MdWorkspace, i: number): void {
+/** Append the members of supervariable i, of weight w, to the order. */
+export function emitMembers(s: MdWorkspace, i: number, w: number): void {
   const { order, memberNext } = s;
   let k = s.ordered;
-  for (let j = i; j !== -1; j = memberNext[j]) order[k++] = j;
+  order[k++] = i;
+  for (let j = i, m = 1; m < w; m++) order[k++] = j = memberNext[j];
   s.ordered = k;
 }
 
-/** Fold the member chain of b into that of a (b becomes part of supervariable a). */
-export function joinMembers(s: MdWorkspace, a: number, b: number): void {
-  s.memberNext[s.memberTail[a]] = b;
-  s.memberTail[a] = s.memberTail[b];
+/** Fold the member chain of b (weight wb) behind that of a (weight wa): b becomes part of supervariable a. */
+export function joinMembers(s: MdWorkspace, a: number, wa: number, b: number, wb: number): void {
+  s.memberNext[wa === 1 ? a : s.memberTail[a]] = b;
+  s.memberTail[a] = wb === 1 ? b : s.memberTail[b];
 }
 
 /**
