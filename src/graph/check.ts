@@ -2,22 +2,67 @@
  * Structural check of a Graph before an ordering works on it: offsets that
  * start at 0 and never decrease, neighbours in range, each list strictly
  * ascending without self loops, and every edge stored in both directions.
- * One pass, O(n + nnz), one Int32Array of length n.
+ * O(n + nnz), one Int32Array of length n.
  *
  * The symmetry test uses the ascending order: processing vertices v in
  * increasing order, the entries above u in u's list must appear exactly as the
  * vertices v > u that list u, in the same order, so a cursor per vertex suffices.
+ * A well-formed graph passes in one sweep that tests everything at once; only
+ * when that sweep fails does a second, check-by-check scan find the first
+ * offending entry for the error message.
  */
 import { InputError } from "../errors.js";
 import type { Graph } from "./types.js";
 
 /** Throws InputError naming the first offending vertex/entry (original numbering). */
 export function checkGraph(graph: Graph, who: string): void {
-  const { n, offsets, neighbours } = graph;
+  const { n, offsets } = graph;
   if (!Number.isInteger(n) || n < 0) throw new InputError(`${who}: graph.n must be a non-negative integer, got ${n}`);
   if (offsets.length !== n + 1) {
     throw new InputError(`${who}: graph.offsets has length ${offsets.length}, expected n + 1 = ${n + 1}`);
   }
+  if (passesAll(graph)) return;
+  reportFirstError(graph, who);
+}
+
+/**
+ * Every check below in one sweep over the vertices: entries under v are matched
+ * against their owners' cursors as they are met, entries above v only need to ascend.
+ */
+function passesAll(graph: Graph): boolean {
+  const { n, offsets, neighbours } = graph;
+  if (offsets[0] !== 0 || !(offsets[n] <= neighbours.length)) return false;
+  const cursor = new Int32Array(n);
+  for (let v = 0; v < n; v++) {
+    const end = offsets[v + 1];
+    let p = offsets[v];
+    if (!(end >= p)) return false;
+    let previous = -1;
+    for (; p < end; p++) {
+      const u = neighbours[p];
+      if (!(u < v)) break;
+      if (!(u > previous)) return false;
+      previous = u;
+      const c = cursor[u];
+      if (c >= offsets[u + 1] || neighbours[c] !== v) return false;
+      cursor[u] = c + 1;
+    }
+    if (p < end && neighbours[p] === v) return false;
+    cursor[v] = p;
+    for (; p < end; p++) {
+      const u = neighbours[p];
+      if (!(u > previous)) return false;
+      previous = u;
+    }
+    if (previous >= n) return false;
+  }
+  for (let u = 0; u < n; u++) if (cursor[u] !== offsets[u + 1]) return false;
+  return true;
+}
+
+/** The checks one by one, throwing InputError at the first failure. */
+function reportFirstError(graph: Graph, who: string): void {
+  const { n, offsets, neighbours } = graph;
   if (offsets[0] !== 0) throw new InputError(`${who}: graph.offsets[0] must be 0, got ${offsets[0]}`);
   for (let v = 0; v < n; v++) {
     if (offsets[v + 1] < offsets[v]) throw new InputError(`${who}: graph.offsets decreases at vertex ${v}`);

@@ -15,7 +15,7 @@ import type { Graph } from "../graph/types.js";
 import { checkGraph } from "../graph/check.js";
 import { buildElement, externalSizes, type NewElement } from "./minimum-degree/pivot-element.js";
 import { finishElement, mergeIndistinguishable, pruneAndBound } from "./minimum-degree/update.js";
-import { bucketInsert, bucketRemove, emitMembers, MARK_START, MdWorkspace } from "./minimum-degree/workspace.js";
+import { bucketInsert, bucketRemove, emitMembers, Field, MARK_START, MdWorkspace } from "./minimum-degree/workspace.js";
 
 /** Options of {@link minimumDegree}. */
 export interface MinimumDegreeOptions {
@@ -71,30 +71,29 @@ export function minimumDegreeTrusted(graph: Graph, denseThreshold: number, aggre
     s.minDegree = d;
     const me = s.bucketHead[d];
     bucketRemove(s, me);
-    const w = s.weight[me];
-    s.weight[me] = -w;
+    const bme = me * Field.Count;
+    const w = s.node[bme + Field.Weight];
+    s.node[bme + Field.Weight] = -w;
     s.eliminated += w;
-    emitMembers(s, me);
-    const atEnd = s.elementCount[me] !== 0;
+    emitMembers(s, me, w);
+    const atEnd = s.node[bme + Field.Elements] !== 0;
     buildElement(s, me, el);
     externalSizes(s, el);
     pruneAndBound(s, me, el, aggressive);
-    advanceMark(s);
-    mergeIndistinguishable(s, el);
-    advanceMark(s);
-    s.weight[me] = 0;
+    s.mark0 += s.maxElement + 1; // past every mark0 + |Le \ Lme| written above
+    mergeIndistinguishable(s, el); // leaves mark0 past its own marks
+    s.node[bme + Field.Weight] = 0;
     finishElement(s, me, el, atEnd);
+    if (s.mark0 > s.markLimit) resetMarks(s);
   }
   for (let k = 0; k < dense.length; k++) s.order[s.ordered++] = dense[k];
   return s.order;
 }
 
-/** Move the mark base past every value written this round; reset rarely (2^50 headroom). */
-function advanceMark(s: MdWorkspace): void {
-  s.mark0 += s.n + 1;
-  if (s.mark0 < 2 ** 50) return;
-  const mark = s.mark;
-  for (let j = 0; j < s.n; j++) if (mark[j] !== 0) mark[j] = 1;
+/** Marks are about to leave the int32 range: set every live mark back to 1 and restart the base. */
+function resetMarks(s: MdWorkspace): void {
+  const node = s.node;
+  for (let b = Field.Mark; b < node.length; b += Field.Count) if (node[b] !== 0) node[b] = 1;
   s.mark0 = MARK_START;
 }
 
@@ -106,24 +105,24 @@ function advanceMark(s: MdWorkspace): void {
  */
 function setAsideDense(s: MdWorkspace, graph: Graph, threshold: number): Int32Array {
   const { n, offsets, neighbours } = graph;
-  const { degree, weight, start, size, firstHalo } = s;
+  const { node, firstHalo } = s; // each Degree starts as the vertex's number of neighbours
   let count = 0;
-  for (let j = 0; j < n; j++) {
-    degree[j] = offsets[j + 1] - offsets[j];
-    if (degree[j] > threshold && j < firstHalo) count++;
-  }
+  for (let j = 0; j < firstHalo; j++) if (offsets[j + 1] - offsets[j] > threshold) count++;
   const dense = new Int32Array(count);
   count = 0;
   for (let j = 0; j < n; j++) {
     if (offsets[j + 1] - offsets[j] <= threshold) continue;
     if (j < firstHalo) dense[count++] = j;
-    weight[j] = 0;
-    start[j] = -1;
-    size[j] = 0;
-    for (let p = offsets[j]; p < offsets[j + 1]; p++) degree[neighbours[p]]--;
+    const bj = j * Field.Count;
+    node[bj + Field.Weight] = 0;
+    node[bj + Field.Start] = -1;
+    node[bj + Field.Size] = 0;
+    for (let p = offsets[j]; p < offsets[j + 1]; p++) node[neighbours[p] * Field.Count + Field.Degree]--;
   }
   s.eliminated = count;
   s.minDegree = n;
-  for (let j = 0; j < firstHalo; j++) if (weight[j] !== 0) bucketInsert(s, j, degree[j]);
+  for (let j = 0, bj = 0; j < firstHalo; j++, bj += Field.Count) {
+    if (node[bj + Field.Weight] !== 0) bucketInsert(s, j, node[bj + Field.Degree]);
+  }
   return dense;
 }
