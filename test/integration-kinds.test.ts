@@ -101,4 +101,25 @@ describe("saddle-point (quasi-definite) systems with L·D·Lᵀ", () => {
       expect(F.inertia()).toEqual({ positive: nu, negative: np, zero: 0 });
     }
   });
+
+  it("the same system with pressures in other units (D·K·D, D = diag(I, 1e-6·I)) solves and keeps its inertia", () => {
+    // A change of units is a congruence: Sylvester's law keeps the inertia, and D·K·D·y = D·b has y = D⁻¹·x
+    // for K·x = b (closed form). The pressure pivots scale by 1e-12 with their rows; they are not tiny.
+    const k = 10, t = 1e-6, nu = 2 * k * k, np = (k - 1) * (k - 1);
+    const K = saddle2d(k).matrix, n = K.ncols;
+    const d = Float64Array.from({ length: n }, (_, i) => (i < nu ? 1 : t));
+    const v = K.values.slice();
+    for (let j = 0; j < n; j++) for (let p = K.colPtr[j]; p < K.colPtr[j + 1]; p++) v[p] *= d[K.rowIdx[p]] * d[j];
+    const S = SparseMatrix.fromCSC(n, n, K.colPtr, K.rowIdx, v);
+    const b = rhs(n), Db = b.map((x, i) => x * d[i]);
+    for (const ordering of ORDERINGS) {
+      const x = analyze(K, { ordering }).factor(K, { method: "ldlt" }).solve(b);
+      const F = analyze(S, { ordering }).factor(S, { method: "ldlt" });
+      expect(F.inertia(), ordering).toEqual({ positive: nu, negative: np, zero: 0 });
+      const y = F.solve(Db);
+      let worst = 0, xmax = 0;
+      for (let i = 0; i < n; i++) { worst = Math.max(worst, Math.abs(y[i] * d[i] - x[i])); xmax = Math.max(xmax, Math.abs(x[i])); }
+      expect(worst / xmax, ordering).toBeLessThan(1e-9);
+    }
+  });
 });

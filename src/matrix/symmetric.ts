@@ -197,11 +197,3 @@ export function symmetricNormInf(A: SparseMatrix): number {
   for (let i = 0; i < sums.length; i++) if (sums[i] > m) m = sums[i];
   return m;
 }
-
-/** Largest absolute entry. */
-export function maxAbs(A: SparseMatrix): number {
-  let m = 0;
-  const v = A.values;
-  for (let p = 0; p < A.nnz; p++) { const a = Math.abs(v[p]); if (a > m) m = a; }
-  return m;
-}

@@ -9,7 +9,7 @@ import { AbortedError, InputError, NotPositiveDefiniteError, PatternMismatchErro
 import { jsKernels } from "../kernels/js/index.js";
 import type { DenseKernels } from "../kernels/types.js";
 import { SparseMatrix } from "../matrix/sparse.js";
-import { maxAbs, requireSquare, requireSymmetric, symmetricNormInf } from "../matrix/symmetric.js";
+import { requireSquare, requireSymmetric, symmetricNormInf } from "../matrix/symmetric.js";
 import { multifrontal, type PivotFailure } from "./multifrontal.js";
 import { buildScatterMap, samePattern, scatterValues, type ScatterMap } from "./scatter.js";
 import { refineSolve } from "./refine.js";
@@ -19,6 +19,8 @@ import {
   type NumericInput, type SolveInfo, type SolveOptions,
 } from "./types.js";
 import { stackSchedule, workspaceOf, type StackSchedule, type WorkspacePrediction } from "./workspace.js";
+
+const EMPTY = new Float64Array(0);
 
 /** Options that may change from one refactor to the next. */
 export interface RefactorOptions {
@@ -143,11 +145,32 @@ export class Factorization {
       st, kernels: this.kernels, method: this.method, order: this.schedule.order,
       childPtr: this.schedule.childPtr, children: this.schedule.children,
       stackBase: w.factorDoubles, scratch: w.factorDoubles + w.stackDoubles,
-      tiny: this.method === "ldlt" ? this.pivotTolerance * maxAbs(A) : 0, // Cholesky stops on pivots <= 0 only
+      tiny: this.method === "ldlt" ? this.pivotFloors(A) : EMPTY, // Cholesky stops on pivots <= 0 only
       ...this.frontWork,
       between,
     });
     if (fail) throw this.pivotError(fail);
+  }
+
+  /**
+   * L·D·Lᵀ pivot floors in the new numbering: pivotTolerance times the
+   * largest |a_ij| of each row of the symmetric matrix. Relative to its own
+   * row, a pivot is tiny only through cancellation; the largest entry of the
+   * whole matrix would instead flag rows that are merely in other units or
+   * on the small side of a coefficient jump.
+   */
+  private pivotFloors(A: SparseMatrix): Float64Array {
+    const n = this.n, row = new Float64Array(n), { colPtr, rowIdx, values } = A;
+    for (let j = 0; j < n; j++) {
+      for (let q = colPtr[j]; q < colPtr[j + 1]; q++) {
+        const i = rowIdx[q], a = Math.abs(values[q]);
+        if (a > row[i]) row[i] = a;
+        if (a > row[j]) row[j] = a;
+      }
+    }
+    const floor = new Float64Array(n), perm = this.input.permutation;
+    for (let k = 0; k < n; k++) floor[k] = this.pivotTolerance * row[perm[k]];
+    return floor;
   }
 
   private pivotError(f: PivotFailure): NotPositiveDefiniteError {
@@ -155,7 +178,7 @@ export class Factorization {
     const column = this.input.permutation[st.superStart[f.supernode] + f.column];
     const what = this.method === "cholesky"
       ? `matrix is not positive definite: pivot ${f.pivot} <= 0`
-      : `L·D·Lᵀ met a zero or tiny pivot ${f.pivot} (|d| <= ${this.pivotTolerance} · max|a_ij|)`;
+      : `L·D·Lᵀ met a zero or tiny pivot ${f.pivot} (|d| <= ${this.pivotTolerance} · the largest |a_ij| of its row)`;
     return new NotPositiveDefiniteError(column, f.pivot, `${what} at column ${column} (0-based, original numbering)`);
   }
 

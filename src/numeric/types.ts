@@ -33,8 +33,9 @@ export interface FactorOptions {
   /** Checked between supernodes; when aborted the factorization throws AbortedError and is left unusable. */
   signal?: AbortSignal;
   /**
-   * L·D·Lᵀ only: a pivot with |d| ≤ pivotTolerance · max|a_ij| stops the
-   * factorization with NotPositiveDefiniteError. Default 1e-12.
+   * L·D·Lᵀ only: a pivot d_j with |d_j| ≤ pivotTolerance · max_i |a_ij| (the
+   * largest entry of its own row) stops the factorization with
+   * NotPositiveDefiniteError. Default 1e-12.
    */
   pivotTolerance?: number;
 }
