@@ -15,6 +15,7 @@ import { Matrix } from "ml-matrix";
 import { lowerTriangle } from "../src/matrix/symmetric.js";
 import { backwardError, blockDiagonal, denseBackwardError } from "./helpers/numeric.js";
 import { planeStrainFull } from "./helpers/elements.js";
+import { powerLawLaplacian } from "./helpers/networks.js";
 
 const ORDERINGS: OrderingName[] = ["nested-dissection", "minimum-degree", "reverse-cuthill-mckee", "natural"];
 
@@ -50,6 +51,7 @@ const SPD_CASES: Array<[string, () => SparseMatrix]> = [
   ["3-dof trilinear elasticity", () => elasticity3d(5).matrix],
   ["high-contrast coefficients 1e-6..1e6", () => highContrast(24)],
   ["shifted geometric graph Laplacian", () => geometricLaplacian(700, 8, 1e-2, 3).matrix],
+  ["power-law network Laplacian (preferential attachment), grounding shift 1e-3", () => powerLawLaplacian(1000, 2, 3, 1e-3)],
   ["disconnected pieces", () => blockDiagonal([grid2d(9).matrix, grid3d(5).matrix, SparseMatrix.fromDense([[2]]), grid2d(3).matrix])],
 ];
 
