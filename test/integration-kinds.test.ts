@@ -104,6 +104,17 @@ describe("saddle-point (quasi-definite) systems with L·D·Lᵀ", () => {
     }
   });
 
+  it("with a small stabilization γ = 1e-8, solve keeps the backward error near n·ε under every ordering", () => {
+    // Orderings that eliminate pressures before their velocities grow pivots of order 1/γ; the
+    // factorization reports that growth and solve refines against A (Skeel 1980) until ε is reached.
+    const A = saddle2d(12, 1e-8).matrix, n = A.ncols;
+    const b = rhs(n);
+    for (const ordering of [...ORDERINGS, undefined]) {
+      const F = analyze(A, { ordering }).factor(A, { method: "ldlt" });
+      expect(backwardError(A, F.solve(b), b), ordering).toBeLessThan(20 * n * Number.EPSILON);
+    }
+  });
+
   it("the same system with pressures in other units (D·K·D, D = diag(I, 1e-6·I)) solves and keeps its inertia", () => {
     // A change of units is a congruence: Sylvester's law keeps the inertia, and D·K·D·y = D·b has y = D⁻¹·x
     // for K·x = b (closed form). The pressure pivots scale by 1e-12 with their rows; they are not tiny.

@@ -12,6 +12,7 @@ import { SparseMatrix } from "../matrix/sparse.js";
 import { requireSquare, requireSymmetric, symmetricNormInf } from "../matrix/symmetric.js";
 import { multifrontal, type PivotFailure } from "./multifrontal.js";
 import { buildScatterMap, samePattern, scatterValues, type ScatterMap } from "./scatter.js";
+import { ldltGrowth } from "./growth.js";
 import { refineSolve } from "./refine.js";
 import { backwardSweep, diagonalSweep, forwardSweep, largestBelow } from "./triangular.js";
 import {
@@ -21,6 +22,19 @@ import {
 import { stackSchedule, workspaceOf, type StackSchedule, type WorkspacePrediction } from "./workspace.js";
 
 const EMPTY = new Float64Array(0);
+
+/**
+ * Growth ρ above which solves refine by default: the backward error of the
+ * plain sweeps may then reach n·ε·ρ (growth.ts), far from Cholesky's.
+ */
+export const AUTO_REFINE_GROWTH = 16;
+
+/** Largest |a_ij| stored. */
+function largestEntry(A: SparseMatrix): number {
+  let m = 0;
+  for (let p = 0; p < A.nnz; p++) { const a = Math.abs(A.values[p]); if (a > m) m = a; }
+  return m;
+}
 
 /** Options that may change from one refactor to the next. */
 export interface RefactorOptions {
@@ -52,6 +66,8 @@ export class Factorization {
   private matrix: SparseMatrix | null = null;
   private normInf = 0;
   private failure: string | null = "not factored yet";
+  /** ρ of the last factorization (growth.ts): 1 for Cholesky. */
+  private growth = 1;
   private lastStats: FactorStats | null = null;
 
   /** @internal Use `factorize`. */
@@ -91,6 +107,7 @@ export class Factorization {
     try {
       this.load(A);
       this.run(A, options);
+      this.growth = this.method === "ldlt" ? ldltGrowth(this.input.structure, this.kernels.view(), largestEntry(A), new Float64Array(this.n)) : 1;
     } catch (e) {
       this.failure = e instanceof Error ? `the last factorization failed: ${e.message}` : "the last factorization failed";
       throw e;
@@ -105,7 +122,7 @@ export class Factorization {
       method: this.method, kernels: this.kernels.name, seconds, flops,
       gflopsPerSecond: seconds > 0 ? flops / seconds / 1e9 : 0,
       factorBytes: 8 * this.workspace.factorDoubles, peakBytes: this.workspace.peakBytes,
-      supernodes: this.input.structure.supernodeCount,
+      supernodes: this.input.structure.supernodeCount, growth: this.growth,
     };
     this.failure = null;
     return this;
@@ -188,14 +205,23 @@ export class Factorization {
     return this;
   }
 
-  /** Solve A·x = b; b of length n or n×k column-major. Returns a new array. */
+  /**
+   * Solve A·x = b; b of length n or n×k column-major. Returns a new array.
+   * Without `refine`, an L·D·Lᵀ factorization whose growth exceeds
+   * AUTO_REFINE_GROWTH refines (as `refine: true`); Cholesky never needs to.
+   */
   solve(b: Float64Array | number[], options: SolveOptions = {}): Float64Array {
     this.usable();
-    if (options.refine) return this.solveWithInfo(b, options).x;
+    if (options.refine ?? this.autoRefine()) return this.solveWithInfo(b, options).x;
     return this.solveInPlace(Float64Array.from(b)); // solveInPlace checks the right-hand side
   }
 
-  /** Solve A·x = b overwriting b (length n or n×k column-major) with x; returns b. */
+  /** The default of `refine`: refinement when the growth puts the backward error well above ε. */
+  private autoRefine(): boolean {
+    return this.growth > AUTO_REFINE_GROWTH;
+  }
+
+  /** Solve A·x = b overwriting b (length n or n×k column-major) with x; returns b. The plain sweeps: never refines. */
   solveInPlace(b: Float64Array): Float64Array {
     this.usable();
     const k = this.checkRhs(b), n = this.n, perm = this.input.permutation;
@@ -211,12 +237,12 @@ export class Factorization {
     return b;
   }
 
-  /** Solve with the normwise backward error reported and optional iterative refinement. */
+  /** Solve with the normwise backward error reported and iterative refinement (default as in {@link solve}). */
   solveWithInfo(b: Float64Array | number[], options: SolveOptions = {}): SolveInfo {
     this.usable();
     const rhs = Float64Array.from(b);
     this.checkRhs(rhs);
-    return refineSolve(this.matrix as SparseMatrix, this.normInf, rhs, (v) => this.solveInPlace(v), options.refine ?? 0);
+    return refineSolve(this.matrix as SparseMatrix, this.normInf, rhs, (v) => this.solveInPlace(v), options.refine ?? this.autoRefine());
   }
 
   /** Number of right-hand sides in b, after checking its length and values. */

@@ -45,7 +45,9 @@ export interface SolveOptions {
   /**
    * Iterative refinement against the original matrix: a number of steps
    * (stopping early once the backward error reaches ε), or `true` for up to
-   * 10 steps while each step at least halves the backward error.
+   * 10 steps while each step at least halves the backward error. Default:
+   * `true` for an L·D·Lᵀ factorization whose growth exceeds 16 (see
+   * FactorStats.growth), none otherwise.
    */
   refine?: number | boolean;
 }
@@ -86,4 +88,11 @@ export interface FactorStats {
   /** Bytes of the whole kernel store: factor + peak contribution stack + scratch. */
   readonly peakBytes: number;
   readonly supernodes: number;
+  /**
+   * Growth ρ = max_j (|L|·|D|·|Lᵀ|)_jj / max|a_ij| (src/numeric/growth.ts):
+   * 1 for Cholesky; an L·D·Lᵀ solve may lose about log10(ρ) digits of
+   * backward error, which refinement restores (solves refine by default
+   * when ρ > 16).
+   */
+  readonly growth: number;
 }
