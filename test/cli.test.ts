@@ -4,7 +4,9 @@ import { tmpdir } from "node:os";
 import { join } from "node:path";
 import { main } from "../src/cli/main.js";
 import { VERSION } from "../src/cli/version.js";
-import { readMatrixMarket } from "../src/matrix/market.js";
+import { readMatrixMarket, writeMatrixMarket } from "../src/matrix/market.js";
+import { grid2d as grid2dLower } from "./helpers/patterns.js";
+import { powerLawLaplacian } from "./helpers/networks.js";
 import { symmetricMultiply } from "../src/matrix/symmetric.js";
 
 const dir = mkdtempSync(join(tmpdir(), "septum-cli-"));
@@ -176,6 +178,28 @@ describe("septum solve", () => {
 });
 
 describe("septum analyze and report", () => {
+  it("without --ordering, solve and analyze keep the fewer flops of nested dissection and minimum degree, as the library does", () => {
+    // A power-law network, where minimum degree fills less than dissection (the README's rule: the default keeps the better).
+    const A = powerLawLaplacian(600, 2, 1, 1e-2);
+    const name = file("net600.mtx", writeMatrixMarket(A, { symmetric: true }));
+    const flopsOf = (f: string, o: string) => JSON.parse(run(["analyze", f, "--json", "--ordering", o]).out).flops as number;
+    const nd = flopsOf(name, "nd"), md = flopsOf(name, "md");
+    expect(md).toBeLessThan(nd);
+    const solved = JSON.parse(run(["solve", name, "--json"]).out);
+    expect(solved.ordering).toBe("minimum-degree");
+    expect(solved.flops).toBe(md);
+    expect(solved.backwardError).toBeLessThan(20 * 600 * Number.EPSILON);
+    const analysed = JSON.parse(run(["analyze", name, "--json"]).out);
+    expect([analysed.ordering, analysed.flops]).toEqual(["minimum-degree", md]);
+    expect(JSON.parse(run(["analyze", name, "--json", "--ordering", "auto"]).out).flops).toBe(md);
+    // On a grid the same rule holds, whichever ordering wins there.
+    const grid = file("g30.mtx", writeMatrixMarket(grid2dLower(30), { symmetric: true }));
+    const gnd = flopsOf(grid, "nd"), gmd = flopsOf(grid, "md");
+    const g = JSON.parse(run(["solve", grid, "--json"]).out);
+    expect(g.flops).toBe(Math.min(gnd, gmd));
+    expect(g.ordering).toBe(gmd < gnd ? "minimum-degree" : "nested-dissection");
+  });
+
   it("--compare --json lists every ordering with the same n and nnzA", () => {
     expect(run(["generate", "mesh2d", "60", "-o", "m60.mtx", "--quiet"]).code).toBe(0);
     const r = run(["analyze", "m60.mtx", "--compare", "--json"]);

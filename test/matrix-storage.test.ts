@@ -7,6 +7,7 @@ import {
 } from "../src/matrix/symmetric.js";
 import { adjacencyGraph } from "../src/graph/adjacency.js";
 import { InputError, NotSymmetricError } from "../src/errors.js";
+import { planeStrainFull } from "./helpers/elements.js";
 
 /** Random symmetric matrix as a dense array (n ≤ 12), entries small integers, density ~30%. */
 const denseSymmetric = fc.integer({ min: 1, max: 12 }).chain((n) =>
@@ -114,6 +115,38 @@ describe("symmetric storage forms", () => {
     // Rounding-level disagreement from assembly order is accepted (common practice).
     const near = SparseMatrix.fromDense([[4, 0.1 + 0.2], [0.3, 4]]);
     expect(lowerTriangle(near).get(1, 0)).toBeCloseTo(0.3, 15);
+  });
+
+  it("accepts full storage assembled element by element (Bᵀ·D·B): triangles differ by rounding of their rows, not of the entry", () => {
+    for (const seed of [1, 2, 3]) {
+      const A = planeStrainFull(12, seed);
+      const n = A.ncols, rowMax = new Float64Array(n);
+      for (let j = 0; j < n; j++) for (let p = A.colPtr[j]; p < A.colPtr[j + 1]; p++) {
+        rowMax[A.rowIdx[p]] = Math.max(rowMax[A.rowIdx[p]], Math.abs(A.values[p]));
+      }
+      // The fixture: (Bᵀ·D·B)ᵀ = Bᵀ·D·B for symmetric D (closed form), so the triangles differ by rounding only:
+      // within a few ε of the rows' scale, yet far beyond ε of the entry itself where contributions cancel.
+      let byRows = 0, byEntry = 0;
+      for (let j = 0; j < n; j++) for (let p = A.colPtr[j]; p < A.colPtr[j + 1]; p++) {
+        const i = A.rowIdx[p], a = A.values[p], t = A.get(j, i), d = Math.abs(a - t);
+        byRows = Math.max(byRows, d / Math.sqrt(rowMax[i] * rowMax[j]));
+        byEntry = Math.max(byEntry, d / Math.max(Math.abs(a), Math.abs(t)));
+      }
+      expect(byRows).toBeLessThan(4 * Number.EPSILON);
+      expect(byEntry).toBeGreaterThan(64 * Number.EPSILON);
+      const L = lowerTriangle(A);
+      for (let j = 0; j < n; j++) for (let p = L.colPtr[j]; p < L.colPtr[j + 1]; p++) expect(L.values[p]).toBe(A.get(L.rowIdx[p], j));
+      // A real disagreement, 1e-9 of the rows' scale, is still refused and named.
+      const v = A.values.slice();
+      let q = -1;
+      for (let p = A.colPtr[5]; p < A.colPtr[6] && q < 0; p++) if (A.rowIdx[p] > 5) q = p;
+      v[q] += 1e-9 * Math.sqrt(rowMax[A.rowIdx[q]] * rowMax[5]);
+      const B = SparseMatrix.fromCSC(n, n, A.colPtr, A.rowIdx, v);
+      expect(() => lowerTriangle(B)).toThrow(NotSymmetricError);
+      expect(() => lowerTriangle(B)).toThrow(`entry (${A.rowIdx[q]}, 5)`);
+    }
+    // Near the top of the double range the rows' scale must not overflow into accepting anything.
+    expect(() => lowerTriangle(SparseMatrix.fromDense([[1e300, 1e299], [2e299, 1e300]]))).toThrow(NotSymmetricError);
   });
 
   it("permuteLower gives the lower triangle of P·A·Pᵀ (dense reference)", () => {

@@ -5,6 +5,7 @@
  * succeeds. Expected columns and pivots are worked by hand beside each case.
  */
 import { describe, expect, it } from "vitest";
+import { Matrix, solve } from "ml-matrix";
 import {
   AbortedError, InputError, NotPositiveDefiniteError, NotSymmetricError, PatternMismatchError, SeptumError,
 } from "../src/errors.js";
@@ -60,12 +61,12 @@ describe("pivot breakdown names the original column", () => {
     }
   });
 
-  it("L·D·Lᵀ: a zero pivot and a tiny pivot (relative to max|a_ij|) stop it with the original column", () => {
+  it("L·D·Lᵀ: a zero pivot and a tiny pivot (relative to its row's largest entry) stop it with the original column", () => {
     const Z = withIsolated(30, 12, 0);
     const e = caught(() => factorize(analyse(Z, randomPermutation(30, 9)), Z, { method: "ldlt" })) as NotPositiveDefiniteError;
     expect(e).toBeInstanceOf(NotPositiveDefiniteError);
     expect(e.column).toBe(12);
-    // [[1, 1], [1, 1 + 1e-14]]: second pivot 1e-14 (to rounding) ≤ 1e-12 · max|a| = 1e-12.
+    // [[1, 1], [1, 1 + 1e-14]]: second pivot 1e-14 (to rounding) ≤ 1e-12 · (largest entry of row 1 = 1 + 1e-14).
     const T = SparseMatrix.fromTriplets(2, 2, [0, 1, 1], [0, 0, 1], [1, 1, 1 + 1e-14]);
     const t = caught(() => factorize(analyse(T), T, { method: "ldlt" })) as NotPositiveDefiniteError;
     expect(t).toBeInstanceOf(NotPositiveDefiniteError);
@@ -73,6 +74,18 @@ describe("pivot breakdown names the original column", () => {
     // With a smaller tolerance the same matrix factors and is positive definite.
     const ok = factorize(analyse(T), T, { method: "ldlt", pivotTolerance: 1e-16 });
     expect(ok.inertia()).toEqual({ positive: 2, negative: 0, zero: 0 });
+  });
+
+  it("L·D·Lᵀ: a small pivot in a row of small entries is not tiny, however large the rest of the matrix", () => {
+    // [[1e8, 0, 1], [0, 1e-5, 1], [1, 1, −1e-6]] in natural order: pivots 1e8, 1e-5 (its own diagonal, no
+    // cancellation) and −1e-6 − 1e-8 − 1e5 (worked by hand), so the inertia is (2, 1); 1e-5 < 1e-12 · 1e8.
+    const T = SparseMatrix.fromTriplets(3, 3, [0, 1, 2, 2, 2], [0, 1, 0, 1, 2], [1e8, 1e-5, 1, 1, -1e-6]);
+    const F = factorize(analyse(T), T, { method: "ldlt" });
+    expect(F.inertia()).toEqual({ positive: 2, negative: 1, zero: 0 });
+    const b = [1, 2, 3], x = F.solve(b);
+    // Reference: ml-matrix's dense LU solve of the same matrix.
+    const ref = solve(new Matrix([[1e8, 0, 1], [0, 1e-5, 1], [1, 1, -1e-6]]), Matrix.columnVector(b)).to1DArray();
+    for (let i = 0; i < 3; i++) expect(Math.abs(x[i] - ref[i])).toBeLessThan(1e-12 * Math.abs(ref[i]));
   });
 });
 

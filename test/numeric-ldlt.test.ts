@@ -57,6 +57,43 @@ describe("quasi-definite saddle-point systems", () => {
   });
 });
 
+describe("growth of L·D·Lᵀ without pivoting, and the refinement it calls for", () => {
+  it("reports the growth max_j (|L|·|D|·|Lᵀ|)_jj / max|a_ij| of [[−γ, 1], [1, 1]] in closed form", () => {
+    // Natural order: d₁ = −γ, l₂₁ = −1/γ, d₂ = 1 + 1/γ, so (|L||D||Lᵀ|)₁₁ = γ and
+    // (|L||D||Lᵀ|)₂₂ = l₂₁²·γ + d₂ = 1 + 2/γ (worked by hand); max|a_ij| = 1.
+    for (const gamma of [1e-1, 1e-4, 1e-8]) {
+      const A = SparseMatrix.fromTriplets(2, 2, [0, 1, 1], [0, 0, 1], [-gamma, 1, 1]);
+      const F = factorize(analyse(A), A, { method: "ldlt" });
+      expect(F.stats.growth).toBeCloseTo(1 + 2 / gamma, 6 - Math.log10(1 + 2 / gamma));
+      expect(F.inertia()).toEqual({ positive: 1, negative: 1, zero: 0 });
+    }
+    // Cholesky cannot grow: Σ_k l_jk² = a_jj (common practice).
+    const S = grid2d(6).matrix;
+    expect(factorize(analyse(S), S).stats.growth).toBe(1);
+  });
+
+  it("a quasi-definite system with a small −γ·I block: solve refines by itself when the growth is large", () => {
+    // Eliminating a pressure before its velocities makes pivots of order 1/γ: the plain sweeps
+    // lose about log10(growth) digits of backward error, refinement in working precision restores them.
+    const A = quasiDefinite(40, 20, 5), n = A.ncols;
+    const v = A.values.slice();
+    for (let j = 40; j < n; j++) for (let p = A.colPtr[j]; p < A.colPtr[j + 1]; p++) if (A.rowIdx[p] === j) v[p] *= 1e-8; // C → 1e-8·C
+    const Q = SparseMatrix.fromCSC(n, n, A.colPtr, A.rowIdx, v);
+    const pressuresFirst = Int32Array.from({ length: n }, (_, k) => (k < 20 ? 40 + k : k - 20));
+    const F = factorize(analyse(Q, pressuresFirst), Q, { method: "ldlt" });
+    expect(F.inertia()).toEqual({ positive: 40, negative: 20, zero: 0 });
+    expect(F.stats.growth).toBeGreaterThan(1e6);
+    const b = Float64Array.from({ length: n }, (_, i) => Math.cos(i));
+    const plain = F.solveInPlace(b.slice()); // no refinement, by definition
+    const x = F.solve(b);
+    // Reference residuals: ml-matrix dense products.
+    expect(denseBackwardError(dense(Q), plain, b)).toBeGreaterThan(1e4 * n * EPS);
+    expect(denseBackwardError(dense(Q), x, b)).toBeLessThanOrEqual(10 * n * EPS);
+    expect(F.solveWithInfo(b).backwardError).toBeLessThanOrEqual(10 * n * EPS);
+    expect(F.solveWithInfo(b, { refine: 0 }).refinementSteps).toBe(0);
+  });
+});
+
 describe("L·D·Lᵀ on SPD matrices agrees with Cholesky", () => {
   it("same log det, same solution to rounding, all-positive inertia", () => {
     const A = grid2d(18).matrix, n = A.ncols;

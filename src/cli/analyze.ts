@@ -3,7 +3,7 @@ import type { SparseMatrix } from "../matrix/sparse.js";
 import type { OrderingName } from "../solver/analyze.js";
 import type { Analysis } from "../solver/analysis.js";
 import type { CliIO } from "./io.js";
-import { numberOption, orderingOption, ORDERINGS, positionals, shortOrderingName, type Parsed } from "./options.js";
+import { numberOption, orderingChoiceOption, ORDERINGS, positionals, shortOrderingName, type Parsed } from "./options.js";
 import { analyzeWith, loadSymmetric } from "./pipeline.js";
 import { progressLine, type ProgressLine } from "./progress.js";
 import { num, secs, table } from "./format.js";
@@ -22,6 +22,13 @@ export function analyzeAll(io: CliIO, A: SparseMatrix, orderings: readonly Order
     const analysis = analyzeWith(A, ordering, seed, line, orderings.length > 1 ? `${shortOrderingName(ordering)}: ` : "");
     return { ordering, analysis, seconds: io.now() - t };
   });
+}
+
+/** One analysis with the named ordering, or the library's default choice when none is named. */
+function analyzeOne(io: CliIO, A: SparseMatrix, choice: OrderingName | undefined, seed: number, line: ProgressLine): Analysed {
+  const t = io.now();
+  const analysis = analyzeWith(A, choice, seed, line);
+  return { ordering: analysis.stats.ordering as OrderingName, analysis, seconds: io.now() - t };
 }
 
 function record(a: Analysed) {
@@ -50,11 +57,12 @@ export function compareTable(list: readonly Analysed[], factorSeconds?: readonly
 
 export function analyzeCommand(io: CliIO, p: Parsed): number {
   const [path] = positionals("analyze", p.positionals, ["the matrix file A.mtx"]);
-  const ordering = orderingOption(p.values.ordering);
+  const choice = orderingChoiceOption(p.values.ordering);
   const seed = numberOption("seed", p.values.seed, 1, 0, 2 ** 31 - 1, true);
   const line = progressLine(io, io.stderrIsTTY && !p.values.quiet);
   const A = loadSymmetric(io, path);
-  const list = analyzeAll(io, A, p.values.compare ? ORDERINGS : [ordering], seed, line);
+  const list = p.values.compare ? analyzeAll(io, A, ORDERINGS, seed, line) : [analyzeOne(io, A, choice, seed, line)];
+  const ordering = list[0].ordering;
   line.done();
   if (p.values.json) {
     io.stdout(JSON.stringify(p.values.compare ? list.map(record) : record(list[0])) + "\n");

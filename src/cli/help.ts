@@ -21,9 +21,16 @@ Matrices are read from Matrix Market files (coordinate, real/integer/pattern,
 general or symmetric); indices in messages are 1-based, as in the file.
 `;
 
-const ORDERING_TEXT = `  --ordering NAME   nested-dissection (nd, default), minimum-degree (md),
+const SEED_TEXT = `  --seed N          seed of the randomized parts of nested dissection (default 1)`;
+
+const ORDERING_TEXT = `  --ordering NAME   auto (default: the fewer flops of nested dissection and
+                    minimum degree), nested-dissection (nd), minimum-degree (md),
                     reverse-cuthill-mckee (rcm) or natural
-  --seed N          seed of the randomized parts of nested dissection (default 1)`;
+${SEED_TEXT}`;
+
+const REPORT_ORDERING_TEXT = `  --ordering NAME   nested-dissection (nd, default), minimum-degree (md),
+                    reverse-cuthill-mckee (rcm) or natural
+${SEED_TEXT}`;
 
 export const HELP: Record<string, string> = {
   solve: `Usage: septum solve A.mtx [--rhs b.mtx] [-o x.mtx] [options]
@@ -60,7 +67,7 @@ ordering's statistics side by side. Large matrices are drawn binned.
 
 Options:
   -o, --output FILE the HTML file to write (required)
-${ORDERING_TEXT}
+${REPORT_ORDERING_TEXT}
                     (the ordering drawn in detail; all are compared)
   -q, --quiet       no progress line
 `,

@@ -52,6 +52,19 @@ export function orderingOption(v: string | boolean | undefined, fallback: Orderi
   return o;
 }
 
+/**
+ * --ordering of solve and analyze: a named ordering, or undefined for "auto"
+ * (the default), the library's own choice: the fewer flops of nested
+ * dissection and minimum degree.
+ */
+export function orderingChoiceOption(v: string | boolean | undefined): OrderingName | undefined {
+  if (v === undefined || String(v).toLowerCase() === "auto") return undefined;
+  const name = String(v).toLowerCase();
+  const o = ALIASES[name] ?? (ORDERINGS as readonly string[]).find((x) => x === name);
+  if (!o) throw new UsageError(`--ordering: unknown ordering '${v}'; expected auto, ${ORDERINGS.join(", ")} (or nd, md, rcm)`);
+  return o;
+}
+
 /** --method cholesky|ldlt. */
 export function methodOption(v: string | boolean | undefined): "cholesky" | "ldlt" {
   if (v === undefined) return "cholesky";

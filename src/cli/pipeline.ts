@@ -31,8 +31,8 @@ export function loadSymmetric(io: CliIO, path: string): SparseMatrix {
   }
 }
 
-/** Analyze with one ordering, progress reported on the line with the given prefix. */
-export function analyzeWith(A: SparseMatrix, ordering: OrderingName, seed: number, line: ProgressLine, prefix = ""): Analysis {
+/** Analyze with one ordering (undefined: the library's default choice), progress reported on the line with the given prefix. */
+export function analyzeWith(A: SparseMatrix, ordering: OrderingName | undefined, seed: number, line: ProgressLine, prefix = ""): Analysis {
   return analyze(A, { ordering, seed, onProgress: progressCallback(line, prefix) });
 }
 

@@ -33,9 +33,15 @@ export function storageForm(A: SparseMatrix): StorageForm {
 }
 
 /**
- * Relative tolerance for two mirrored entries of a full-storage matrix to count
- * as equal: assembly in different orders rounds differently, so a few ulps
- * are allowed (common practice).
+ * Tolerance for two mirrored entries of a full-storage matrix to count as
+ * equal, relative to the geometric mean of their rows' largest entries:
+ * |a_ij − a_ji| ≤ 64·ε·max(|a_ij|, |a_ji|, √(r_i·r_j)), r_i = max_k |a_ik|.
+ * Assembly computes a_ij and a_ji as sums of element terms in different
+ * orders; each term is bounded by √(k_ii·k_jj) of its (semidefinite) element
+ * matrix, so by Cauchy–Schwarz the two sums differ by rounding of order
+ * ε·√(a_ii·a_jj), not of the entry itself, which cancellation can leave far
+ * smaller. A difference of that size is below the backward error of the
+ * factorization itself (common practice; Higham 2002, §10.1).
  */
 const SYMMETRY_TOLERANCE = 64 * Number.EPSILON;
 
@@ -71,6 +77,16 @@ function keepLower(A: SparseMatrix): SparseMatrix {
   return SparseMatrix.trusted(n, n, ptr, idx, val);
 }
 
+/** Largest absolute entry of each row of A as stored. */
+function rowMaxima(A: SparseMatrix): Float64Array {
+  const r = new Float64Array(A.nrows), { rowIdx, values } = A;
+  for (let p = 0; p < A.nnz; p++) {
+    const a = Math.abs(values[p]);
+    if (a > r[rowIdx[p]]) r[rowIdx[p]] = a;
+  }
+  return r;
+}
+
 /**
  * Throw NotSymmetricError naming the first entry where A and Aᵀ disagree
  * beyond SYMMETRY_TOLERANCE (a missing entry counts as zero). Meant for
@@ -78,7 +94,7 @@ function keepLower(A: SparseMatrix): SparseMatrix {
  */
 export function requireSymmetric(A: SparseMatrix): void {
   const T = A.transpose();
-  const n = A.ncols;
+  const n = A.ncols, rows = rowMaxima(A);
   for (let j = 0; j < n; j++) {
     let p = A.colPtr[j], q = T.colPtr[j];
     const pe = A.colPtr[j + 1], qe = T.colPtr[j + 1];
@@ -87,7 +103,9 @@ export function requireSymmetric(A: SparseMatrix): void {
       const i = Math.min(ia, it);
       const a = ia === i ? A.values[p++] : 0;
       const t = it === i ? T.values[q++] : 0;
-      if (a !== t && Math.abs(a - t) > SYMMETRY_TOLERANCE * Math.max(Math.abs(a), Math.abs(t))) {
+      if (a === t) continue;
+      const scale = Math.max(Math.abs(a), Math.abs(t), Math.sqrt(rows[i]) * Math.sqrt(rows[j])); // no overflow near 1e308
+      if (Math.abs(a - t) > SYMMETRY_TOLERANCE * scale) {
         throw new NotSymmetricError(i, j,
           `matrix is not symmetric: entry (${i}, ${j}) is ${a} but entry (${j}, ${i}) is ${t} (0-based)`);
       }
@@ -177,13 +195,5 @@ export function symmetricNormInf(A: SparseMatrix): number {
   }
   let m = 0;
   for (let i = 0; i < sums.length; i++) if (sums[i] > m) m = sums[i];
-  return m;
-}
-
-/** Largest absolute entry. */
-export function maxAbs(A: SparseMatrix): number {
-  let m = 0;
-  const v = A.values;
-  for (let p = 0; p < A.nnz; p++) { const a = Math.abs(v[p]); if (a > m) m = a; }
   return m;
 }

@@ -9,9 +9,10 @@ import { AbortedError, InputError, NotPositiveDefiniteError, PatternMismatchErro
 import { jsKernels } from "../kernels/js/index.js";
 import type { DenseKernels } from "../kernels/types.js";
 import { SparseMatrix } from "../matrix/sparse.js";
-import { maxAbs, requireSquare, requireSymmetric, symmetricNormInf } from "../matrix/symmetric.js";
+import { requireSquare, requireSymmetric, symmetricNormInf } from "../matrix/symmetric.js";
 import { multifrontal, type PivotFailure } from "./multifrontal.js";
 import { buildScatterMap, samePattern, scatterValues, type ScatterMap } from "./scatter.js";
+import { ldltGrowth } from "./growth.js";
 import { refineSolve } from "./refine.js";
 import { backwardSweep, diagonalSweep, forwardSweep, largestBelow } from "./triangular.js";
 import {
@@ -19,6 +20,21 @@ import {
   type NumericInput, type SolveInfo, type SolveOptions,
 } from "./types.js";
 import { stackSchedule, workspaceOf, type StackSchedule, type WorkspacePrediction } from "./workspace.js";
+
+const EMPTY = new Float64Array(0);
+
+/**
+ * Growth ρ above which solves refine by default: the backward error of the
+ * plain sweeps may then reach n·ε·ρ (growth.ts), far from Cholesky's.
+ */
+export const AUTO_REFINE_GROWTH = 16;
+
+/** Largest |a_ij| stored. */
+function largestEntry(A: SparseMatrix): number {
+  let m = 0;
+  for (let p = 0; p < A.nnz; p++) { const a = Math.abs(A.values[p]); if (a > m) m = a; }
+  return m;
+}
 
 /** Options that may change from one refactor to the next. */
 export interface RefactorOptions {
@@ -50,6 +66,8 @@ export class Factorization {
   private matrix: SparseMatrix | null = null;
   private normInf = 0;
   private failure: string | null = "not factored yet";
+  /** ρ of the last factorization (growth.ts): 1 for Cholesky. */
+  private growth = 1;
   private lastStats: FactorStats | null = null;
 
   /** @internal Use `factorize`. */
@@ -89,6 +107,7 @@ export class Factorization {
     try {
       this.load(A);
       this.run(A, options);
+      this.growth = this.method === "ldlt" ? ldltGrowth(this.input.structure, this.kernels.view(), largestEntry(A), new Float64Array(this.n)) : 1;
     } catch (e) {
       this.failure = e instanceof Error ? `the last factorization failed: ${e.message}` : "the last factorization failed";
       throw e;
@@ -103,7 +122,7 @@ export class Factorization {
       method: this.method, kernels: this.kernels.name, seconds, flops,
       gflopsPerSecond: seconds > 0 ? flops / seconds / 1e9 : 0,
       factorBytes: 8 * this.workspace.factorDoubles, peakBytes: this.workspace.peakBytes,
-      supernodes: this.input.structure.supernodeCount,
+      supernodes: this.input.structure.supernodeCount, growth: this.growth,
     };
     this.failure = null;
     return this;
@@ -143,11 +162,32 @@ export class Factorization {
       st, kernels: this.kernels, method: this.method, order: this.schedule.order,
       childPtr: this.schedule.childPtr, children: this.schedule.children,
       stackBase: w.factorDoubles, scratch: w.factorDoubles + w.stackDoubles,
-      tiny: this.method === "ldlt" ? this.pivotTolerance * maxAbs(A) : 0, // Cholesky stops on pivots <= 0 only
+      tiny: this.method === "ldlt" ? this.pivotFloors(A) : EMPTY, // Cholesky stops on pivots <= 0 only
       ...this.frontWork,
       between,
     });
     if (fail) throw this.pivotError(fail);
+  }
+
+  /**
+   * L·D·Lᵀ pivot floors in the new numbering: pivotTolerance times the
+   * largest |a_ij| of each row of the symmetric matrix. Relative to its own
+   * row, a pivot is tiny only through cancellation; the largest entry of the
+   * whole matrix would instead flag rows that are merely in other units or
+   * on the small side of a coefficient jump.
+   */
+  private pivotFloors(A: SparseMatrix): Float64Array {
+    const n = this.n, row = new Float64Array(n), { colPtr, rowIdx, values } = A;
+    for (let j = 0; j < n; j++) {
+      for (let q = colPtr[j]; q < colPtr[j + 1]; q++) {
+        const i = rowIdx[q], a = Math.abs(values[q]);
+        if (a > row[i]) row[i] = a;
+        if (a > row[j]) row[j] = a;
+      }
+    }
+    const floor = new Float64Array(n), perm = this.input.permutation;
+    for (let k = 0; k < n; k++) floor[k] = this.pivotTolerance * row[perm[k]];
+    return floor;
   }
 
   private pivotError(f: PivotFailure): NotPositiveDefiniteError {
@@ -155,7 +195,7 @@ export class Factorization {
     const column = this.input.permutation[st.superStart[f.supernode] + f.column];
     const what = this.method === "cholesky"
       ? `matrix is not positive definite: pivot ${f.pivot} <= 0`
-      : `L·D·Lᵀ met a zero or tiny pivot ${f.pivot} (|d| <= ${this.pivotTolerance} · max|a_ij|)`;
+      : `L·D·Lᵀ met a zero or tiny pivot ${f.pivot} (|d| <= ${this.pivotTolerance} · the largest |a_ij| of its row)`;
     return new NotPositiveDefiniteError(column, f.pivot, `${what} at column ${column} (0-based, original numbering)`);
   }
 
@@ -165,14 +205,23 @@ export class Factorization {
     return this;
   }
 
-  /** Solve A·x = b; b of length n or n×k column-major. Returns a new array. */
+  /**
+   * Solve A·x = b; b of length n or n×k column-major. Returns a new array.
+   * Without `refine`, an L·D·Lᵀ factorization whose growth exceeds
+   * AUTO_REFINE_GROWTH refines (as `refine: true`); Cholesky never needs to.
+   */
   solve(b: Float64Array | number[], options: SolveOptions = {}): Float64Array {
     this.usable();
-    if (options.refine) return this.solveWithInfo(b, options).x;
+    if (options.refine ?? this.autoRefine()) return this.solveWithInfo(b, options).x;
     return this.solveInPlace(Float64Array.from(b)); // solveInPlace checks the right-hand side
   }
 
-  /** Solve A·x = b overwriting b (length n or n×k column-major) with x; returns b. */
+  /** The default of `refine`: refinement when the growth puts the backward error well above ε. */
+  private autoRefine(): boolean {
+    return this.growth > AUTO_REFINE_GROWTH;
+  }
+
+  /** Solve A·x = b overwriting b (length n or n×k column-major) with x; returns b. The plain sweeps: never refines. */
   solveInPlace(b: Float64Array): Float64Array {
     this.usable();
     const k = this.checkRhs(b), n = this.n, perm = this.input.permutation;
@@ -188,12 +237,12 @@ export class Factorization {
     return b;
   }
 
-  /** Solve with the normwise backward error reported and optional iterative refinement. */
+  /** Solve with the normwise backward error reported and iterative refinement (default as in {@link solve}). */
   solveWithInfo(b: Float64Array | number[], options: SolveOptions = {}): SolveInfo {
     this.usable();
     const rhs = Float64Array.from(b);
     this.checkRhs(rhs);
-    return refineSolve(this.matrix as SparseMatrix, this.normInf, rhs, (v) => this.solveInPlace(v), options.refine ?? 0);
+    return refineSolve(this.matrix as SparseMatrix, this.normInf, rhs, (v) => this.solveInPlace(v), options.refine ?? this.autoRefine());
   }
 
   /** Number of right-hand sides in b, after checking its length and values. */

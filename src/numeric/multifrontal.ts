@@ -35,7 +35,8 @@ export interface FrontalPass {
   /** Offset of the stack base (= factor doubles) and of the scratch block. */
   readonly stackBase: number;
   readonly scratch: number;
-  readonly tiny: number;
+  /** L·D·Lᵀ: per column (new numbering), a pivot with |d| ≤ tiny[j] stops the pass; unused by Cholesky. */
+  readonly tiny: Float64Array;
   /** Offset of each supernode's contribution block while it waits on the stack. */
   readonly cbOffset: Float64Array;
   /** Workspaces of length n. */
@@ -102,8 +103,8 @@ function factorFront(p: FrontalPass, s: number, cb: number): PivotFailure | null
     K.gemm(b, b, c, panel + c, m, panel + c, m, cb, b, true);
     return null;
   }
-  const f = K.ldlt(c, panel, m, p.tiny);
-  if (f >= 0) return { supernode: s, column: f, pivot: S[panel + f * (m + 1)] };
+  const bad = ldltPanel(p, s, panel, m, c);
+  if (bad) return bad;
   if (b === 0) return null;
   K.trsm(b, c, panel, m, panel + c, m, true);
   // W = L21·D to scratch, then L21 = W·D⁻¹ in the panel, then CB −= W·L21ᵀ.
@@ -115,6 +116,26 @@ function factorFront(p: FrontalPass, s: number, cb: number): PivotFailure | null
   }
   K.gemm(b, b, c, w, b, panel + c, m, cb, b, true);
   return null;
+}
+
+/**
+ * L·D·Lᵀ of s's diagonal block with the per-column pivot floors: the kernel
+ * stops at the first pivot under the smallest floor of the block, then the
+ * pivots it produced before that are checked against their own floors (a
+ * pivot is computed the same whether or not a later check rejects it, so the
+ * first failing column is the same as with a per-column test in the kernel).
+ */
+function ldltPanel(p: FrontalPass, s: number, panel: number, m: number, c: number): PivotFailure | null {
+  const S = p.kernels.view(), f0 = p.st.superStart[s];
+  let floor = Infinity;
+  for (let j = 0; j < c; j++) if (p.tiny[f0 + j] < floor) floor = p.tiny[f0 + j];
+  const f = p.kernels.ldlt(c, panel, m, c > 0 ? floor : 0);
+  const end = f >= 0 ? f : c;
+  for (let j = 0; j < end; j++) {
+    const d = S[panel + j * (m + 1)];
+    if (Math.abs(d) <= p.tiny[f0 + j]) return { supernode: s, column: j, pivot: d };
+  }
+  return f >= 0 ? { supernode: s, column: f, pivot: S[panel + f * (m + 1)] } : null;
 }
 
 /**

@@ -33,8 +33,9 @@ export interface FactorOptions {
   /** Checked between supernodes; when aborted the factorization throws AbortedError and is left unusable. */
   signal?: AbortSignal;
   /**
-   * L·D·Lᵀ only: a pivot with |d| ≤ pivotTolerance · max|a_ij| stops the
-   * factorization with NotPositiveDefiniteError. Default 1e-12.
+   * L·D·Lᵀ only: a pivot d_j with |d_j| ≤ pivotTolerance · max_i |a_ij| (the
+   * largest entry of its own row) stops the factorization with
+   * NotPositiveDefiniteError. Default 1e-12.
    */
   pivotTolerance?: number;
 }
@@ -44,7 +45,9 @@ export interface SolveOptions {
   /**
    * Iterative refinement against the original matrix: a number of steps
    * (stopping early once the backward error reaches ε), or `true` for up to
-   * 10 steps while each step at least halves the backward error.
+   * 10 steps while each step at least halves the backward error. Default:
+   * `true` for an L·D·Lᵀ factorization whose growth exceeds 16 (see
+   * FactorStats.growth), none otherwise.
    */
   refine?: number | boolean;
 }
@@ -85,4 +88,11 @@ export interface FactorStats {
   /** Bytes of the whole kernel store: factor + peak contribution stack + scratch. */
   readonly peakBytes: number;
   readonly supernodes: number;
+  /**
+   * Growth ρ = max_j (|L|·|D|·|Lᵀ|)_jj / max|a_ij| (src/numeric/growth.ts):
+   * 1 for Cholesky; an L·D·Lᵀ solve may lose about log10(ρ) digits of
+   * backward error, which refinement restores (solves refine by default
+   * when ρ > 16).
+   */
+  readonly growth: number;
 }
