@@ -8,6 +8,7 @@
 import { AbortedError, InputError, NotPositiveDefiniteError, PatternMismatchError, SeptumError } from "../errors.js";
 import { jsKernels } from "../kernels/js/index.js";
 import type { DenseKernels } from "../kernels/types.js";
+import type { SupernodalStructure } from "../symbolic/types.js";
 import { SparseMatrix } from "../matrix/sparse.js";
 import { requireSquare, requireSymmetric, symmetricNormInf } from "../matrix/symmetric.js";
 import { multifrontal, type PivotFailure } from "./multifrontal.js";
@@ -29,11 +30,24 @@ const EMPTY = new Float64Array(0);
  */
 export const AUTO_REFINE_GROWTH = 16;
 
-/** Largest |a_ij| stored. */
-function largestEntry(A: SparseMatrix): number {
-  let m = 0;
-  for (let p = 0; p < A.nnz; p++) { const a = Math.abs(A.values[p]); if (a > m) m = a; }
-  return m;
+/**
+ * Smallest relative pivot min_j |p_j| / r_j over the diagonal of the factor in
+ * store S, with p_j = L_jj² (Cholesky) or d_j (L·D·Lᵀ) and r_j = rowMax[j],
+ * the largest |a_jk| of row j of A (new numbering). A pivot is the diagonal
+ * of a Schur complement; a ratio near ε means it cancelled to rounding: A is
+ * singular or nearly so to working precision. 1 for n = 0.
+ */
+function smallestRelativePivot(st: SupernodalStructure, S: Float64Array, rowMax: Float64Array, cholesky: boolean): number {
+  let low = Infinity;
+  for (let s = 0; s < st.supernodeCount; s++) {
+    const m = st.rowPtr[s + 1] - st.rowPtr[s], f = st.superStart[s], c = st.superStart[s + 1] - f;
+    for (let j = 0; j < c; j++) {
+      const d = S[st.factorPtr[s] + j * (m + 1)], p = cholesky ? d * d : Math.abs(d);
+      const ratio = p / rowMax[f + j]; // rowMax > 0: a zero row gives a zero pivot, which stops the factorization
+      if (ratio < low) low = ratio;
+    }
+  }
+  return low === Infinity ? 1 : low;
 }
 
 /** Options that may change from one refactor to the next. */
@@ -68,6 +82,8 @@ export class Factorization {
   private failure: string | null = "not factored yet";
   /** ρ of the last factorization (growth.ts): 1 for Cholesky. */
   private growth = 1;
+  /** Largest |a_jk| of each row j of A in the new numbering (rowMaxima), for the pivot floors and smallestPivot. */
+  private readonly rowMax: Float64Array;
   private lastStats: FactorStats | null = null;
 
   /** @internal Use `factorize`. */
@@ -86,6 +102,7 @@ export class Factorization {
     this.cumulativeFlops = flopsAlongOrder(input, this.schedule.order);
     this.solveTmp = new Float64Array(largestBelow(input.structure));
     const st = input.structure;
+    this.rowMax = new Float64Array(st.n);
     this.frontWork = {
       cbOffset: new Float64Array(st.supernodeCount), local: new Int32Array(st.n), rel: new Int32Array(st.n), runEnd: new Int32Array(st.n),
     };
@@ -106,8 +123,9 @@ export class Factorization {
     const t0 = performance.now();
     try {
       this.load(A);
-      this.run(A, options);
-      this.growth = this.method === "ldlt" ? ldltGrowth(this.input.structure, this.kernels.view(), largestEntry(A), new Float64Array(this.n)) : 1;
+      this.rowMaxima(A);
+      this.run(options);
+      this.growth = this.method === "ldlt" ? ldltGrowth(this.input.structure, this.kernels.view(), largest(this.rowMax), new Float64Array(this.n)) : 1;
     } catch (e) {
       this.failure = e instanceof Error ? `the last factorization failed: ${e.message}` : "the last factorization failed";
       throw e;
@@ -123,6 +141,7 @@ export class Factorization {
       gflopsPerSecond: seconds > 0 ? flops / seconds / 1e9 : 0,
       factorBytes: 8 * this.workspace.factorDoubles, peakBytes: this.workspace.peakBytes,
       supernodes: this.input.structure.supernodeCount, growth: this.growth,
+      smallestPivot: smallestRelativePivot(this.input.structure, this.kernels.view(), this.rowMax, this.method === "cholesky"),
     };
     this.failure = null;
     return this;
@@ -144,7 +163,7 @@ export class Factorization {
   }
 
   /** The multifrontal pass with progress and abort between supernodes. */
-  private run(A: SparseMatrix, options: RefactorOptions): void {
+  private run(options: RefactorOptions): void {
     const { signal, onProgress } = options;
     if (signal?.aborted) throw new AbortedError("factorization aborted before it started");
     const st = this.input.structure, w = this.workspace, cum = this.cumulativeFlops;
@@ -162,11 +181,29 @@ export class Factorization {
       st, kernels: this.kernels, method: this.method, order: this.schedule.order,
       childPtr: this.schedule.childPtr, children: this.schedule.children,
       stackBase: w.factorDoubles, scratch: w.factorDoubles + w.stackDoubles,
-      tiny: this.method === "ldlt" ? this.pivotFloors(A) : EMPTY, // Cholesky stops on pivots <= 0 only
+      tiny: this.method === "ldlt" ? this.pivotFloors() : EMPTY, // Cholesky stops on pivots <= 0 only
       ...this.frontWork,
       between,
     });
     if (fail) throw this.pivotError(fail);
+  }
+
+  /**
+   * The largest |a_jk| of each row j of the symmetric matrix, into rowMax in
+   * the new numbering (any storage form: each stored entry counts for its row
+   * and its column).
+   */
+  private rowMaxima(A: SparseMatrix): void {
+    const n = this.n, row = new Float64Array(n), { colPtr, rowIdx, values } = A;
+    for (let j = 0; j < n; j++) {
+      for (let q = colPtr[j]; q < colPtr[j + 1]; q++) {
+        const i = rowIdx[q], a = Math.abs(values[q]);
+        if (a > row[i]) row[i] = a;
+        if (a > row[j]) row[j] = a;
+      }
+    }
+    const perm = this.input.permutation;
+    for (let k = 0; k < n; k++) this.rowMax[k] = row[perm[k]];
   }
 
   /**
@@ -176,17 +213,9 @@ export class Factorization {
    * whole matrix would instead flag rows that are merely in other units or
    * on the small side of a coefficient jump.
    */
-  private pivotFloors(A: SparseMatrix): Float64Array {
-    const n = this.n, row = new Float64Array(n), { colPtr, rowIdx, values } = A;
-    for (let j = 0; j < n; j++) {
-      for (let q = colPtr[j]; q < colPtr[j + 1]; q++) {
-        const i = rowIdx[q], a = Math.abs(values[q]);
-        if (a > row[i]) row[i] = a;
-        if (a > row[j]) row[j] = a;
-      }
-    }
-    const floor = new Float64Array(n), perm = this.input.permutation;
-    for (let k = 0; k < n; k++) floor[k] = this.pivotTolerance * row[perm[k]];
+  private pivotFloors(): Float64Array {
+    const floor = new Float64Array(this.n);
+    for (let k = 0; k < this.n; k++) floor[k] = this.pivotTolerance * this.rowMax[k];
     return floor;
   }
 
@@ -290,6 +319,13 @@ export class Factorization {
       for (let j = 0; j < c; j++) f(S[st.factorPtr[s] + j * (m + 1)]);
     }
   }
+}
+
+/** Largest entry of a nonnegative array (0 if empty). */
+function largest(v: Float64Array): number {
+  let m = 0;
+  for (let i = 0; i < v.length; i++) if (v[i] > m) m = v[i];
+  return m;
 }
 
 /** Running sum of Σ c_j² along the processing order (structure counts). */

@@ -95,4 +95,18 @@ export interface FactorStats {
    * when ρ > 16).
    */
   readonly growth: number;
+  /**
+   * Smallest relative pivot min_j |p_j| / r_j, with p_j = L_jj² (Cholesky) or
+   * d_j (L·D·Lᵀ) and r_j the largest |a_jk| of row j of A (the row scale of
+   * the L·D·Lᵀ pivot tolerance); 1 for an empty matrix. Each pivot is the
+   * diagonal of a Schur complement, so a value near ε (2.2e-16) means a pivot
+   * cancelled to rounding: A is singular or nearly so to working precision,
+   * and solutions may be meaningless even when the backward error is small
+   * (Cholesky still factors an ill-conditioned SPD matrix backward stably).
+   * Typical causes: a graph Laplacian with no grounded node, or a model
+   * missing constraints (a floating body, pure Neumann conditions). It is a
+   * warning sign, not a condition number: a well-scaled SPD matrix gives a
+   * value of order 1, but a small value is not required for ill-conditioning.
+   */
+  readonly smallestPivot: number;
 }
