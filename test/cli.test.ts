@@ -8,6 +8,7 @@ import { readMatrixMarket, writeMatrixMarket } from "../src/matrix/market.js";
 import { grid2d as grid2dLower } from "./helpers/patterns.js";
 import { powerLawLaplacian } from "./helpers/networks.js";
 import { symmetricMultiply } from "../src/matrix/symmetric.js";
+import { SparseMatrix } from "../src/matrix/sparse.js";
 
 const dir = mkdtempSync(join(tmpdir(), "septum-cli-"));
 afterAll(() => rmSync(dir, { recursive: true, force: true }));
@@ -174,6 +175,32 @@ describe("septum solve", () => {
     expect(tty.err).toMatch(/factor|ordering|symbolic/);
     expect(run(["solve", "g30.mtx", "--quiet"], true).err).toBe("");
     expect(run(["solve", "g30.mtx"], false).err).toBe("");
+  });
+});
+
+describe("septum solve: a singular matrix is flagged", () => {
+  it("warns on stderr when the smallest relative pivot is below 1e-10 (ungrounded path Laplacian), not for a grid", () => {
+    // Path Laplacian with weights 1 + e/7 and no grounded node: the constant vector spans its null space (Fiedler
+    // 1973), so the last pivot is 0 in exact arithmetic and of rounding size here; weights that are not binary
+    // fractions keep it from being exactly 0 (which Cholesky refuses instead).
+    const n = 10, r: number[] = [], c: number[] = [], v: number[] = [], d = new Array<number>(n).fill(0);
+    for (let e = 0; e + 1 < n; e++) { const w = 1 + e / 7; r.push(e + 1); c.push(e); v.push(-w); d[e] += w; d[e + 1] += w; }
+    for (let i = 0; i < n; i++) { r.push(i); c.push(i); v.push(d[i]); }
+    const name = file("path10.mtx", writeMatrixMarket(SparseMatrix.fromTriplets(n, n, r, c, v), { symmetric: true }));
+    const text = run(["solve", name, "--ordering", "natural"]);
+    expect(text.code).toBe(0);
+    expect(text.out).toContain("backward error");
+    expect(text.err.trim().split("\n")).toHaveLength(1);
+    expect(text.err).toMatch(/^septum: warning: path10\.mtx: smallest relative pivot \S+ \(below 1e-10\): the matrix is singular/);
+    const json = run(["solve", name, "--ordering", "natural", "--json"]);
+    expect(JSON.parse(json.out).smallestPivot).toBeLessThan(1e-12);
+    expect(json.err).toContain("septum: warning:");
+    // The grounded 5-point grid: every pivot is a Schur complement diagonal, at least λ_min(A) = 8·sin²(π/26) (closed
+    // form for k = 12; S⁻¹ is a principal block of A⁻¹), over row maxima 4: ratios ≥ 2·sin²(π/26) ≈ 0.029.
+    expect(run(["generate", "grid2d", "12", "-o", "grid12.mtx", "--quiet"]).code).toBe(0);
+    const grid = run(["solve", "grid12.mtx", "--json"]);
+    expect(grid.err).toBe("");
+    expect(JSON.parse(grid.out).smallestPivot).toBeGreaterThanOrEqual(2 * Math.sin(Math.PI / 26) ** 2);
   });
 });
 

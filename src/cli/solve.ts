@@ -41,12 +41,13 @@ export function solveCommand(io: CliIO, p: Parsed): number {
     writeText(io, String(p.values.output), writeMatrixMarketArray(n, rhs.columns, x, { comment: `solution of ${path} by septum` }));
   }
   const s = analysis.stats, fs = F.stats;
+  if (fs.smallestPivot < SINGULAR_PIVOT) io.stderr(singularWarning(path, fs.smallestPivot));
   const seconds = { read: t1 - t0, analyze: t2 - t1, ordering: s.orderingSeconds, factor: t3 - t2, solve: t4 - t3, total: io.now() - t0 };
   if (p.values.json) {
     io.stdout(JSON.stringify({
       file: path, n, nnzA: s.nnzA, nnzL: s.nnzL, flops: s.flops, supernodes: s.supernodes, factorBytes: fs.factorBytes, peakBytes: fs.peakBytes,
       ordering, method, kernels: fs.kernels, gflopsPerSecond: fs.gflopsPerSecond, rightHandSides: rhs.columns,
-      residual: q.residual, backwardError: q.backwardError, ...(q.maxError === undefined ? {} : { maxError: q.maxError }), seconds,
+      smallestPivot: fs.smallestPivot, residual: q.residual, backwardError: q.backwardError, ...(q.maxError === undefined ? {} : { maxError: q.maxError }), seconds,
     }) + "\n");
     return 0;
   }
@@ -59,6 +60,15 @@ export function solveCommand(io: CliIO, p: Parsed): number {
   error      max |x − 1| = ${sci(q.maxError)}   (b = A·1, exact solution all ones)`}
 ${p.values.output ? `  wrote      ${p.values.output}\n` : ""}`);
   return 0;
+}
+
+/** Smallest relative pivot (FactorStats.smallestPivot) below which solve warns that A is singular to working precision. */
+export const SINGULAR_PIVOT = 1e-10;
+
+/** One stderr line, in the form of the CLI's error lines, saying what a rounding-sized pivot means and what to check. */
+function singularWarning(path: string, pivot: number): string {
+  return `septum: warning: ${path}: smallest relative pivot ${sci(pivot)} (below ${SINGULAR_PIVOT}): the matrix is singular or nearly so ` +
+    "to working precision; the solution may be meaningless even with a small backward error (ground a graph Laplacian, check the model's constraints)\n";
 }
 
 function kernelsOption(v: string | boolean | undefined): "auto" | "wasm" | "js" {
