@@ -133,9 +133,18 @@ export function multilevelSeparator(g: WGraph, rng: Rng, o: BisectOptions, work:
   if (!second) return refineStart(g, levels, start, o, work);
   const other = coarsestBisection(g, levels, rng, o, work, o.secondStart);
   // each start is evaluated again just before its refinement: the cover step reads the work's boundary list
+  // about a third of the second starts end, after FM on the coarsest graph, as the very same
+  // bisection; the refinement draws no random numbers, so it would repeat the first result
+  const same = sameLabels(start.label, other.label);
   const coarsest = coarsestOf(g, levels);
   const a = refineStart(g, levels, evaluate(coarsest, start.label, work), o, work);
+  if (same) return a;
   return lighter(g, a, refineStart(g, levels, evaluate(coarsest, other.label, work), o, work));
+}
+
+function sameLabels(a: Int8Array, b: Int8Array): boolean {
+  for (let v = 0; v < a.length; v++) if (a[v] !== b[v]) return false;
+  return true;
 }
 
 /**
