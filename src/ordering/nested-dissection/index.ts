@@ -284,7 +284,7 @@ function findSeparator(s: State, piece: Piece): Int8Array {
   if (c === undefined || mode === "ignore") return multilevelSeparator(g, s.rng, s.bisect, s.work);
   const cut = coordinateCut(g, ids, c);
   if (mode === "plain") return separate(g, cut, { ...s.bisect, separatorRefinement: "none" }, s.work);
-  const refined = separate(g, refineGiven(g, cut, s.bisect, s.work).label, s.bisect, s.work, true);
+  const refined = separate(g, refineGiven(g, cut, s.bisect, s.work), s.bisect, s.work);
   return lighter(g, refined, multilevelSeparator(g, s.rng, s.bisect, s.work));
 }
 
