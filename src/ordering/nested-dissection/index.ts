@@ -89,6 +89,8 @@ interface State {
   top: Graph;
   /** All 0 between uses: edges to the leaf of each halo vertex, then fill cursors. */
   haloCount: Int32Array;
+  /** The input's edge weights, all ones: every piece's edge weights are a view of it. */
+  ones: Int32Array;
 }
 
 /**
@@ -111,9 +113,11 @@ export function nestedDissection(graph: Graph, o: DissectionOptions): OrderingRe
     perm: new Int32Array(n), first: [], sepFirst: [], end: [], parent: [], stack: [], placed: 0,
     rng: new Rng(o.seed ?? 1), o, leafSize: o.leafSize ?? defaultLeafSize(n), bisect: { ...defaultBisectOptions, ...o.bisect }, work: fmWork(n, graph.neighbours.length),
     localOf: new Int32Array(n).fill(-1), hairRoot: null, coreAt: new Int32Array(0),
-    top: graph, haloCount: new Int32Array(n),
+    top: graph, haloCount: new Int32Array(n), ones: new Int32Array(0),
   };
-  const { g, ids, root } = setAsideDense(s, weightedGraph(graph, o.vertexWeights));
+  const whole = weightedGraph(graph, o.vertexWeights);
+  s.ones = whole.edgeWeight;
+  const { g, ids, root } = setAsideDense(s, whole);
   s.hairRoot = hairRoots(g, ids, n);
   if (s.hairRoot !== null) s.coreAt = new Int32Array(n);
   pushComponents(s, g, ids, null, 0, 0, root);
@@ -294,7 +298,7 @@ function findSeparator(s: State, piece: Piece): Int8Array {
  * batched into leaf pieces. Returns the position after the last one.
  */
 function pushComponents(s: State, g: WGraph, ids: Int32Array, label: Int8Array | null, which: number, lo: number, parent: number): number {
-  const split = splitSide(g, label, which, s.localOf, s.work.arenas);
+  const split = splitSide(g, label, which, s.localOf, s.work.arenas, s.ones);
   const { starts } = split;
   let batchStart = -1;
   let pos = lo;
