@@ -15,6 +15,8 @@ import type { WGraph } from "./wgraph.js";
 export interface Level {
   readonly graph: WGraph;
   readonly coarseOf: Int32Array;
+  /** Sum of the edge weights at each coarse vertex (summed while contracting: the refinement's interior vertices need it). */
+  readonly degree: Int32Array;
 }
 
 /**
@@ -127,6 +129,7 @@ function contract(g: WGraph, match: Int32Array, arenas: HierarchyArenas): Level 
   }
   const offsets = arenas.vertices.take(nc + 1);
   const vertexWeight = arenas.vertices.take(nc);
+  const degree = arenas.vertices.take(nc);
   const slot = arenas.vertices.take(nc).fill(-1);
   const neighbours = arenas.adjacency.take(fa.length);
   const edgeWeight = arenas.edgeWeights.take(fa.length);
@@ -138,10 +141,12 @@ function contract(g: WGraph, match: Int32Array, arenas: HierarchyArenas): Level 
     const u = match[v];
     if (u < v) continue;
     const start = k;
+    let d = 0;
     vertexWeight[c] = fv[v];
     for (let p = fx[v], pe = fx[v + 1]; p < pe; p++) {
       const t = coarseOf[fa[p]];
       if (t === c) continue;
+      d += fe[p];
       const q = slot[t];
       if (q >= start) { edgeWeight[q] += fe[p]; continue; }
       slot[t] = k;
@@ -155,6 +160,7 @@ function contract(g: WGraph, match: Int32Array, arenas: HierarchyArenas): Level 
       for (let p = fx[u], pe = fx[u + 1]; p < pe; p++) {
         const t = coarseOf[fa[p]];
         if (t === c) continue;
+        d += fe[p];
         const q = slot[t];
         if (q >= start) { edgeWeight[q] += fe[p]; continue; }
         slot[t] = k;
@@ -162,13 +168,14 @@ function contract(g: WGraph, match: Int32Array, arenas: HierarchyArenas): Level 
         edgeWeight[k++] = fe[p];
       }
     }
+    degree[c] = d;
     if (vertexWeight[c] > max) max = vertexWeight[c];
     offsets[++c] = k;
   }
   const graph: WGraph = {
-    n: nc, offsets, neighbours: arenas.adjacency.trim(neighbours, k), edgeWeight: arenas.edgeWeights.trim(edgeWeight, k), vertexWeight, totalWeight: g.totalWeight, maxVertexWeight: max,
+    n: nc, offsets, neighbours: arenas.adjacency.trim(neighbours, k), edgeWeight: arenas.edgeWeights.trim(edgeWeight, k), vertexWeight, totalWeight: g.totalWeight, maxVertexWeight: max, unitEdges: false,
   };
-  return { graph, coarseOf };
+  return { graph, coarseOf, degree };
 }
 
 /**

@@ -6,7 +6,7 @@
  */
 import { initialBisection } from "./bisect.js";
 import { coarsen, type Level } from "./coarsen.js";
-import { evaluate, refineBisection, type Bisection, type FmWork } from "./refine.js";
+import { evaluate, projectBisection, refineBisection, type Bisection, type FmWork } from "./refine.js";
 import type { Rng } from "./rng.js";
 import { vertexSeparatorFromCut } from "./separator.js";
 import { refineSeparator, separatorState, type SeparatorState } from "./separator-refine.js";
@@ -68,7 +68,7 @@ function uncoarsenBisection(g: WGraph, levels: Level[], start: Bisection, o: Bis
   let b = start;
   for (let i = levels.length - 1; i >= 0; i--) {
     const fine = i > 0 ? levels[i - 1].graph : g;
-    b = evaluate(fine, project(fine, levels[i], b.label), work);
+    b = projectBisection(fine, levels[i].coarseOf, i > 0 ? levels[i - 1].degree : null, b, work);
     refineBisection(fine, b, partBound(fine, o.imbalance), o.passes, work);
   }
   return b;

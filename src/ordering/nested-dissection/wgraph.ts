@@ -24,6 +24,8 @@ export interface WGraph {
   readonly totalWeight: number;
   /** The largest vertex weight (0 for an empty graph). */
   readonly maxVertexWeight: number;
+  /** True when every edge weight is 1 (the input graph and its pieces; coarse graphs are false). */
+  readonly unitEdges: boolean;
 }
 
 /** Wraps an unweighted graph; `vertexWeights` defaults to all ones. */
@@ -36,7 +38,7 @@ export function weightedGraph(g: Graph, vertexWeights?: Int32Array): WGraph {
     if (vertexWeight[v] > max) max = vertexWeight[v];
   }
   const edgeWeight = new Int32Array(g.neighbours.length).fill(1);
-  return { n: g.n, offsets: g.offsets, neighbours: g.neighbours, edgeWeight, vertexWeight, totalWeight: total, maxVertexWeight: max };
+  return { n: g.n, offsets: g.offsets, neighbours: g.neighbours, edgeWeight, vertexWeight, totalWeight: total, maxVertexWeight: max, unitEdges: true };
 }
 
 /**
@@ -73,7 +75,7 @@ export function inducedSubgraph(g: WGraph, vertices: Int32Array, localOf: Int32A
   }
   for (let i = 0; i < m; i++) localOf[vertices[i]] = -1;
   return {
-    n: m, offsets, neighbours: trimmed(neighbours, k), edgeWeight: trimmed(edgeWeight, k), vertexWeight, totalWeight: total, maxVertexWeight: max,
+    n: m, offsets, neighbours: trimmed(neighbours, k), edgeWeight: trimmed(edgeWeight, k), vertexWeight, totalWeight: total, maxVertexWeight: max, unitEdges: g.unitEdges,
   };
 }
 
@@ -205,5 +207,6 @@ export function componentGraph(g: WGraph, split: SideSplit, c: number): WGraph {
     vertexWeight,
     totalWeight: total,
     maxVertexWeight: max,
+    unitEdges: g.unitEdges,
   };
 }
