@@ -27,7 +27,7 @@ import { complement, denseVertices } from "./dense.js";
 import { isForest, peelHairs, treePostorder } from "./hairs.js";
 import { fmWork, type FmWork } from "./refine.js";
 import { Rng } from "./rng.js";
-import { components, inducedSubgraph, weightedGraph, type WGraph } from "./wgraph.js";
+import { componentGraph, inducedSubgraph, splitSide, weightedGraph, type SideSplit, type WGraph } from "./wgraph.js";
 
 /** How the cuts are found when coordinates are given. */
 export type CoordinateMode = "refine" | "plain" | "ignore";
@@ -60,13 +60,16 @@ interface Piece {
   leaf: boolean;
 }
 
+/** A piece on the stack: graph null for a leaf that is not a forest (only its ids are read). */
+type Pending = Omit<Piece, "graph"> & { graph: WGraph | null };
+
 interface State {
   perm: Int32Array;
   first: number[];
   sepFirst: number[];
   end: number[];
   parent: number[];
-  stack: Piece[];
+  stack: Pending[];
   placed: number;
   rng: Rng;
   o: DissectionOptions;
@@ -88,6 +91,8 @@ interface State {
   wholeWeight: number;
   /** All 0 between uses: edges to the leaf of each halo vertex, then fill cursors. */
   haloCount: Int32Array;
+  /** The input's edge weights, all ones: every piece's edge weights are a view of it. */
+  ones: Int32Array;
 }
 
 /**
@@ -110,10 +115,11 @@ export function nestedDissection(graph: Graph, o: DissectionOptions): OrderingRe
     perm: new Int32Array(n), first: [], sepFirst: [], end: [], parent: [], stack: [], placed: 0,
     rng: new Rng(o.seed ?? 1), o, leafSize: o.leafSize ?? defaultLeafSize(n), bisect: { ...defaultBisectOptions, ...o.bisect }, work: fmWork(n, graph.neighbours.length),
     localOf: new Int32Array(n).fill(-1), hairRoot: null, coreAt: new Int32Array(0),
-    top: graph, wholeWeight: 0, haloCount: new Int32Array(n),
+    top: graph, wholeWeight: 0, haloCount: new Int32Array(n), ones: new Int32Array(0),
   };
   const whole = weightedGraph(graph, o.vertexWeights);
   s.wholeWeight = whole.totalWeight;
+  s.ones = whole.edgeWeight;
   const { g, ids, root } = setAsideDense(s, whole);
   s.hairRoot = hairRoots(g, ids, n);
   if (s.hairRoot !== null) s.coreAt = new Int32Array(n);
@@ -160,8 +166,13 @@ function addNode(s: State, first: number, sepFirst: number, end: number, parent:
   return s.first.length - 1;
 }
 
-function processPiece(s: State, piece: Piece): void {
-  const g = piece.graph;
+function processPiece(s: State, pending: Pending): void {
+  const g = pending.graph;
+  if (g === null) {
+    placeLeaf(s, pending);
+    return;
+  }
+  const piece: Piece = { ...pending, graph: g };
   if (isForest(g)) {
     placeLeaf(s, piece, treePostorder(g, attachedVertices(s, piece)) ?? undefined);
     return;
@@ -280,7 +291,7 @@ function findSeparator(s: State, piece: Piece): Int8Array {
   if (c === undefined || mode === "ignore") return multilevelSeparator(g, s.rng, s.bisect, s.work, s.wholeWeight);
   const cut = coordinateCut(g, ids, c);
   if (mode === "plain") return separate(g, cut, { ...s.bisect, separatorRefinement: "none" }, s.work);
-  const refined = separate(g, refineGiven(g, cut, s.bisect, s.work).label, s.bisect, s.work, true);
+  const refined = separate(g, refineGiven(g, cut, s.bisect, s.work), s.bisect, s.work);
   return lighter(g, refined, multilevelSeparator(g, s.rng, s.bisect, s.work, s.wholeWeight));
 }
 
@@ -290,29 +301,36 @@ function findSeparator(s: State, piece: Piece): Int8Array {
  * batched into leaf pieces. Returns the position after the last one.
  */
 function pushComponents(s: State, g: WGraph, ids: Int32Array, label: Int8Array | null, which: number, lo: number, parent: number): number {
-  const { order, starts } = components(g, label, which);
+  const split = splitSide(g, label, which, s.localOf, s.work.arenas, s.ones);
+  const { starts } = split;
   let batchStart = -1;
   let pos = lo;
   for (let c = 0; c + 1 < starts.length; c++) {
     const size = starts[c + 1] - starts[c];
     if (size > s.leafSize) {
-      if (batchStart >= 0) { pos = pushPiece(s, g, ids, order.slice(batchStart, starts[c]), pos, parent, true); batchStart = -1; }
-      pos = pushPiece(s, g, ids, order.slice(starts[c], starts[c + 1]), pos, parent, false);
+      if (batchStart >= 0) { pos = pushBatch(s, g, ids, split, batchStart, starts[c], pos, parent); batchStart = -1; }
+      s.stack.push({ graph: componentGraph(g, split, c), ids: gather(ids, split.order.subarray(starts[c], starts[c + 1])), lo: pos, parent, leaf: false });
+      pos += size;
       continue;
     }
     if (batchStart < 0) batchStart = starts[c];
-    if (starts[c + 1] - batchStart >= s.leafSize) { pos = pushPiece(s, g, ids, order.slice(batchStart, starts[c + 1]), pos, parent, true); batchStart = -1; }
+    if (starts[c + 1] - batchStart >= s.leafSize) { pos = pushBatch(s, g, ids, split, batchStart, starts[c + 1], pos, parent); batchStart = -1; }
   }
-  if (batchStart >= 0) pos = pushPiece(s, g, ids, order.slice(batchStart, starts[starts.length - 1]), pos, parent, true);
+  if (batchStart >= 0) pos = pushBatch(s, g, ids, split, batchStart, starts[starts.length - 1], pos, parent);
   return pos;
 }
 
 /**
- * Pushes the piece induced by `verts` (local ids of g) at position `pos`;
- * returns the position after it.
+ * Pushes the leaf piece of the split's vertices at positions from .. to
+ * (whole components) at position `pos`; returns the position after it. Its
+ * graph is built only when the piece may be a forest (fewer edges than
+ * vertices), the one case where it is read: other leaves are ordered from the
+ * input graph.
  */
-function pushPiece(s: State, g: WGraph, ids: Int32Array, verts: Int32Array, pos: number, parent: number, leaf: boolean): number {
-  s.stack.push({ graph: inducedSubgraph(g, verts, s.localOf), ids: gather(ids, verts), lo: pos, parent, leaf });
+function pushBatch(s: State, g: WGraph, ids: Int32Array, split: SideSplit, from: number, to: number, pos: number, parent: number): number {
+  const verts = split.order.subarray(from, to);
+  const forest = split.offsets[to] - split.offsets[from] < 2 * verts.length;
+  s.stack.push({ graph: forest ? inducedSubgraph(g, verts, s.localOf) : null, ids: gather(ids, verts), lo: pos, parent, leaf: true });
   return pos + verts.length;
 }
 
@@ -324,8 +342,8 @@ function gather(ids: Int32Array, verts: Int32Array): Int32Array {
 }
 
 /** Orders a leaf piece (by the leaf ordering with its halo unless `perm` is given) and records a leaf node. */
-function placeLeaf(s: State, piece: Piece, perm?: Int32Array): void {
-  const n = piece.graph.n;
+function placeLeaf(s: State, piece: Pending, perm?: Int32Array): void {
+  const n = piece.ids.length;
   if (perm === undefined) {
     const { graph, halo } = leafWithHalo(s, piece.ids);
     perm = s.o.orderLeaf(graph, halo);

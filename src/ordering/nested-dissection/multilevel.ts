@@ -9,10 +9,10 @@
  */
 import { initialBisection } from "./bisect.js";
 import { coarsen, type Level } from "./coarsen.js";
-import { evaluate, refineBisection, type Bisection, type FmWork } from "./refine.js";
+import { evaluate, projectBisection, refineBisection, type Bisection, type FmWork } from "./refine.js";
 import type { Rng } from "./rng.js";
 import { vertexSeparatorFromCut } from "./separator.js";
-import { refineSeparator, separatorState } from "./separator-refine.js";
+import { refineSeparator, separatorState, type SeparatorState } from "./separator-refine.js";
 import type { WGraph } from "./wgraph.js";
 
 /** Tuning of one bisection. */
@@ -95,7 +95,7 @@ function uncoarsenBisection(g: WGraph, levels: Level[], start: Bisection, o: Bis
   let b = start;
   for (let i = levels.length - 1; i >= 0; i--) {
     const fine = i > 0 ? levels[i - 1].graph : g;
-    b = evaluate(fine, project(fine, levels[i], b.label), work);
+    b = projectBisection(fine, levels[i].coarseOf, i > 0 ? levels[i - 1].degree : null, b, work);
     refineBisection(fine, b, partBound(fine, o.imbalance), o.passes, work);
   }
   return b;
@@ -110,15 +110,23 @@ export function refineGiven(g: WGraph, label: Int8Array, o: BisectOptions, work:
 
 /**
  * Vertex separator of g from a 2-way labelling, in place: labels 0 / 1 for the
- * parts, 2 for the separator. `evaluated`: the labelling is the bisection last
- * evaluated or refined with `work`, so the work's boundary list is its boundary.
+ * parts, 2 for the separator. Given a Bisection, it must be the one last
+ * evaluated or refined with `work`: the work's boundary list is its boundary,
+ * and its part weights give the separator state's without a scan.
  */
-export function separate(g: WGraph, label: Int8Array, o: BisectOptions, work: FmWork, evaluated = false): Int8Array {
-  vertexSeparatorFromCut(g, label, work.cover, evaluated ? { list: work.boundary, count: work.boundaryCount } : undefined);
-  if (o.separatorRefinement !== "none") {
-    refineSeparator(g, separatorState(g, label), partBound(g, o.separatorImbalance), o.passes, work);
-  }
-  return label;
+export function separate(g: WGraph, from: Int8Array | Bisection, o: BisectOptions, work: FmWork): Int8Array {
+  return separateState(g, from, o, work).label;
+}
+
+function separateState(g: WGraph, from: Int8Array | Bisection, o: BisectOptions, work: FmWork): SeparatorState {
+  const evaluated = !(from instanceof Int8Array);
+  const label = evaluated ? from.label : from;
+  const taken = vertexSeparatorFromCut(g, label, work.cover, evaluated ? { list: work.boundary, count: work.boundaryCount } : undefined);
+  const st: SeparatorState = evaluated
+    ? { label, weight: [from.weight[0] - taken[0], from.weight[1] - taken[1], taken[0] + taken[1]] }
+    : separatorState(g, label);
+  if (o.separatorRefinement !== "none") refineSeparator(g, st, partBound(g, o.separatorImbalance), o.passes, work);
+  return st;
 }
 
 /**
@@ -132,10 +140,10 @@ export function multilevelSeparator(g: WGraph, rng: Rng, o: BisectOptions, work:
   const second = o.secondStart > 0 && g.n >= o.secondStartAbove && g.totalWeight >= o.secondStartShare * wholeWeight;
   if (!second) return refineStart(g, levels, start, o, work);
   const other = coarsestBisection(g, levels, rng, o, work, o.secondStart);
-  // each start is evaluated again just before its refinement: the cover step reads the work's boundary list
   // about a third of the second starts end, after FM on the coarsest graph, as the very same
   // bisection; the refinement draws no random numbers, so it would repeat the first result
   const same = sameLabels(start.label, other.label);
+  // each start is evaluated again just before its refinement: the cover step reads the work's boundary list
   const coarsest = coarsestOf(g, levels);
   const a = refineStart(g, levels, evaluate(coarsest, start.label, work), o, work);
   if (same) return a;
@@ -154,31 +162,38 @@ function sameLabels(a: Int8Array, b: Int8Array): boolean {
  */
 function refineStart(g: WGraph, levels: Level[], start: Bisection, o: BisectOptions, work: FmWork): Int8Array {
   if (o.separatorRefinement === "finest" || o.separatorRefinement === "none") {
-    return separate(g, uncoarsenBisection(g, levels, start, o, work).label, o, work, true);
+    return separate(g, uncoarsenBisection(g, levels, start, o, work), o, work);
   }
-  if (o.separatorRefinement === "all" || g.n < o.bothAbove) return separatorByLevels(g, levels, start, o, work);
+  if (o.separatorRefinement === "all" || g.n < o.bothAbove) return separatorByLevels(g, levels, start, o, work).label;
   const copy: Bisection = { label: start.label.slice(), weight: [start.weight[0], start.weight[1]], cut: start.cut };
   const a = separatorByLevels(g, levels, start, o, work);
-  return lighter(g, a, separate(g, uncoarsenBisection(g, levels, copy, o, work).label, o, work, true));
+  return lighterState(a, separateState(g, uncoarsenBisection(g, levels, copy, o, work), o, work)).label;
 }
 
 /** The labelling with the lighter separator; ties go to the better balance. */
 export function lighter(g: WGraph, a: Int8Array, b: Int8Array): Int8Array {
-  const wa = separatorState(g, a).weight;
-  const wb = separatorState(g, b).weight;
+  return lighterState(separatorState(g, a), separatorState(g, b)).label;
+}
+
+function lighterState(a: SeparatorState, b: SeparatorState): SeparatorState {
+  const wa = a.weight;
+  const wb = b.weight;
   if (wa[2] !== wb[2]) return wa[2] < wb[2] ? a : b;
   return Math.abs(wa[0] - wa[1]) <= Math.abs(wb[0] - wb[1]) ? a : b;
 }
 
-/** Cover on the coarsest graph, then separator FM on every level while projecting back. */
-function separatorByLevels(g: WGraph, levels: Level[], start: Bisection, o: BisectOptions, work: FmWork): Int8Array {
-  const coarsest = coarsestOf(g, levels);
-  let label = separate(coarsest, start.label, o, work, true);
+/**
+ * Cover on the coarsest graph, then separator FM on every level while
+ * projecting back. A projection keeps the three weights (a coarse vertex
+ * weighs what its fine vertices weigh together), so the state is carried
+ * over instead of recomputed by a scan of each level.
+ */
+function separatorByLevels(g: WGraph, levels: Level[], start: Bisection, o: BisectOptions, work: FmWork): SeparatorState {
+  const st = separateState(coarsestOf(g, levels), start, o, work);
   for (let i = levels.length - 1; i >= 0; i--) {
     const fine = i > 0 ? levels[i - 1].graph : g;
-    const fineLabel = project(fine, levels[i], label);
-    refineSeparator(fine, separatorState(fine, fineLabel), partBound(fine, o.separatorImbalance), o.passes, work);
-    label = fineLabel;
+    st.label = project(fine, levels[i], st.label);
+    refineSeparator(fine, st, partBound(fine, o.separatorImbalance), o.passes, work);
   }
-  return label;
+  return st;
 }

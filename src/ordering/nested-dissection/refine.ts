@@ -76,6 +76,61 @@ export function evaluate(g: WGraph, label: Int8Array, w: FmWork): Bisection {
   return { label, weight, cut: cut / 2 };
 }
 
+/**
+ * The bisection of `fine` that gives each vertex the label of its coarse
+ * vertex (coarseOf), given the coarse bisection b last refined with w: the
+ * result of {@link evaluate} on the projected labelling, without scanning
+ * every list. A fine vertex can have a neighbour across only when its coarse
+ * vertex does (its neighbours lie in its coarse vertex and in that one's
+ * neighbours), so only the lists of vertices under the coarse boundary are
+ * scanned; the others are interior, their internal degree their weighted
+ * degree (`degree`; when null, the list's length for unit edges, else summed),
+ * and the weights and the cut carry over. Scanning every list at every level
+ * was 6 % of a 1000² grid's time.
+ */
+export function projectBisection(fine: WGraph, coarseOf: Int32Array, degree: Int32Array | null, b: Bisection, w: FmWork): Bisection {
+  const { boundary, boundaryPos, mark, moves, id, ed } = w;
+  const coarseLabel = b.label;
+  const coarseCount = w.boundaryCount;
+  for (let i = 0; i < coarseCount; i++) {
+    const c = boundary[i];
+    mark[c] = 1; boundaryPos[c] = -1; moves[i] = c; // moves: free between FM passes, keeps the list to clear the marks
+  }
+  const label = new Int8Array(fine.n);
+  let candidates = 0; // fine vertices under the coarse boundary, listed in `boundary` (free now)
+  for (let v = 0; v < fine.n; v++) {
+    const c = coarseOf[v];
+    label[v] = coarseLabel[c];
+    if (mark[c] !== 0) { boundary[candidates++] = v; continue; }
+    id[v] = degree !== null ? degree[v] : fine.unitEdges ? fine.offsets[v + 1] - fine.offsets[v] : weightedDegree(fine, v);
+    ed[v] = 0;
+  }
+  for (let i = 0; i < coarseCount; i++) mark[moves[i]] = 0;
+  w.boundaryCount = 0;
+  for (let i = 0; i < candidates; i++) scanVertex(fine, label, boundary[i], w); // lists the boundary in place, ascending
+  return { label, weight: [b.weight[0], b.weight[1]], cut: b.cut };
+}
+
+/** Internal and external degree of v, and v's entry in the boundary list when it has an external edge. */
+function scanVertex(g: WGraph, label: Int8Array, v: number, w: FmWork): void {
+  const { offsets, neighbours, edgeWeight } = g;
+  const s = label[v];
+  let inside = 0;
+  let outside = 0;
+  for (let p = offsets[v], pe = offsets[v + 1]; p < pe; p++) {
+    if (label[neighbours[p]] === s) inside += edgeWeight[p]; else outside += edgeWeight[p];
+  }
+  w.id[v] = inside;
+  w.ed[v] = outside;
+  if (outside > 0) addBoundary(w, v);
+}
+
+function weightedDegree(g: WGraph, v: number): number {
+  let d = 0;
+  for (let p = g.offsets[v], pe = g.offsets[v + 1]; p < pe; p++) d += g.edgeWeight[p];
+  return d;
+}
+
 function addBoundary(w: FmWork, v: number): void {
   if (w.boundaryPos[v] >= 0) return;
   w.boundaryPos[v] = w.boundaryCount;

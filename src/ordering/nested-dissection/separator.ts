@@ -30,8 +30,9 @@ export function coverWork(capacity: number): CoverWork {
  * the lightest of the König cover and the two one-sided boundaries (a boundary
  * on a tie: it keeps the parts' shapes simple). `known` is the boundary of the
  * labelling when the caller keeps it (the edge refinement does), saving a scan of the graph.
+ * Returns the weight taken into the separator from part 0 and from part 1.
  */
-export function vertexSeparatorFromCut(g: WGraph, label: Int8Array, w: CoverWork, known?: { list: Int32Array; count: number }): void {
+export function vertexSeparatorFromCut(g: WGraph, label: Int8Array, w: CoverWork, known?: { list: Int32Array; count: number }): [number, number] {
   const { boundary, mate, stamp } = w;
   const count = known === undefined ? scanBoundary(g, label, boundary) : sortedCopy(known.list, known.count, boundary);
   let w0 = 0;
@@ -52,13 +53,15 @@ export function vertexSeparatorFromCut(g: WGraph, label: Int8Array, w: CoverWork
   }
   const useCover = wc < w0 && wc < w1;
   const side = w0 <= w1 ? 0 : 1;
+  const taken: [number, number] = [0, 0];
   for (let i = 0; i < count; i++) {
     const v = list[i];
     const inCover = (label[v] === 0) !== (stamp[v] === REACHED);
     mate[v] = -1;
     stamp[v] = -1;
-    if (useCover ? inCover : label[v] === side) label[v] = SEPARATOR;
+    if (useCover ? inCover : label[v] === side) { taken[label[v]] += g.vertexWeight[v]; label[v] = SEPARATOR; }
   }
+  return taken;
 }
 
 const REACHED = -2;
