@@ -55,23 +55,14 @@ export function fmWork(capacity: number, edges: number): FmWork {
 
 /** Computes part weights, cut, degrees and boundary of a labelling; O(edges). */
 export function evaluate(g: WGraph, label: Int8Array, w: FmWork): Bisection {
-  const { offsets, neighbours, edgeWeight, vertexWeight } = g;
   for (let i = 0; i < w.boundaryCount; i++) w.boundaryPos[w.boundary[i]] = -1;
   w.boundaryCount = 0;
   let cut = 0;
   const weight: [number, number] = [0, 0];
   for (let v = 0; v < g.n; v++) {
-    const s = label[v];
-    weight[s] += vertexWeight[v];
-    let inside = 0;
-    let outside = 0;
-    for (let p = offsets[v], pe = offsets[v + 1]; p < pe; p++) {
-      if (label[neighbours[p]] === s) inside += edgeWeight[p]; else outside += edgeWeight[p];
-    }
-    w.id[v] = inside;
-    w.ed[v] = outside;
-    cut += outside;
-    if (outside > 0) addBoundary(w, v);
+    weight[label[v]] += g.vertexWeight[v];
+    scanVertex(g, label, v, w);
+    cut += w.ed[v];
   }
   return { label, weight, cut: cut / 2 };
 }
