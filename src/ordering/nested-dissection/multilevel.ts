@@ -166,6 +166,8 @@ function refineStart(g: WGraph, levels: Level[], start: Bisection, o: BisectOpti
   }
   if (o.separatorRefinement === "all" || g.n < o.bothAbove) return separatorByLevels(g, levels, start, o, work).label;
   const copy: Bisection = { label: start.label.slice(), weight: [start.weight[0], start.weight[1]], cut: start.cut };
+  // the separator refinement leaves the work's boundary list, degrees and marks as it found
+  // them, so the copy is still "the bisection last refined with work" for projectBisection
   const a = separatorByLevels(g, levels, start, o, work);
   return lighterState(a, separateState(g, uncoarsenBisection(g, levels, copy, o, work), o, work)).label;
 }
