@@ -84,6 +84,10 @@ export class Factorization {
   private growth = 1;
   /** Largest |a_jk| of each row j of A in the new numbering (rowMaxima), for the pivot floors and smallestPivot. */
   private readonly rowMax: Float64Array;
+  /** n doubles reused by every factorization: row maxima in the input numbering, then the growth sums. */
+  private readonly scratchN: Float64Array;
+  /** L·D·Lᵀ pivot floors (pivotFloors), allocated on the first L·D·Lᵀ factorization. */
+  private floors: Float64Array | null = null;
   private lastStats: FactorStats | null = null;
 
   /** @internal Use `factorize`. */
@@ -103,6 +107,7 @@ export class Factorization {
     this.solveTmp = new Float64Array(largestBelow(input.structure));
     const st = input.structure;
     this.rowMax = new Float64Array(st.n);
+    this.scratchN = new Float64Array(st.n);
     this.frontWork = {
       cbOffset: new Float64Array(st.supernodeCount), local: new Int32Array(st.n), rel: new Int32Array(st.n), runEnd: new Int32Array(st.n),
     };
@@ -125,7 +130,7 @@ export class Factorization {
       this.load(A);
       this.rowMaxima(A);
       this.run(options);
-      this.growth = this.method === "ldlt" ? ldltGrowth(this.input.structure, this.kernels.view(), largest(this.rowMax), new Float64Array(this.n)) : 1;
+      this.growth = this.method === "ldlt" ? ldltGrowth(this.input.structure, this.kernels.view(), largest(this.rowMax), this.scratchN) : 1;
     } catch (e) {
       this.failure = e instanceof Error ? `the last factorization failed: ${e.message}` : "the last factorization failed";
       throw e;
@@ -194,7 +199,7 @@ export class Factorization {
    * and its column).
    */
   private rowMaxima(A: SparseMatrix): void {
-    const n = this.n, row = new Float64Array(n), { colPtr, rowIdx, values } = A;
+    const n = this.n, row = this.scratchN.fill(0), { colPtr, rowIdx, values } = A;
     for (let j = 0; j < n; j++) {
       for (let q = colPtr[j]; q < colPtr[j + 1]; q++) {
         const i = rowIdx[q], a = Math.abs(values[q]);
@@ -214,7 +219,7 @@ export class Factorization {
    * on the small side of a coefficient jump.
    */
   private pivotFloors(): Float64Array {
-    const floor = new Float64Array(this.n);
+    const floor = (this.floors ??= new Float64Array(this.n));
     for (let k = 0; k < this.n; k++) floor[k] = this.pivotTolerance * this.rowMax[k];
     return floor;
   }
