@@ -74,6 +74,21 @@ describe("septum: errors a person can act on", () => {
     expectOneLineError(run(["solve", t, "--ordering", "natural"]), 1, "pivot -3.00 at column 2");
   });
 
+  it("L·D·Lᵀ stopped by a zero pivot says so in L·D·Lᵀ terms, not 'not positive definite', with the column in file numbering", () => {
+    // diag(1, 2, 0, 4): d_j is the diagonal entry itself, so the zero pivot is column 3 whatever the ordering (by hand).
+    const d = file("diag0.mtx", "%%MatrixMarket matrix coordinate real symmetric\n4 4 4\n1 1 1\n2 2 2\n3 3 0\n4 4 4\n");
+    for (const ordering of ["nested-dissection", "minimum-degree", "natural"]) {
+      const r = run(["solve", d, "--method", "ldlt", "--ordering", ordering]);
+      expectOneLineError(r, 1, "diag0.mtx: L·D·Lᵀ met a zero or tiny pivot 0.00 at column 3", "singular", "another --ordering");
+      expect(r.err).not.toContain("positive definite");
+    }
+    // [[1, 2], [2, 4]] (rank 1) in natural order: d1 = 1, d2 = 4 − 2·2/1 = 0 at column 2 (hand computation).
+    const s = file("rank1.mtx", "%%MatrixMarket matrix coordinate real symmetric\n2 2 3\n1 1 1\n2 1 2\n2 2 4\n");
+    expectOneLineError(run(["solve", s, "--method", "ldlt", "--ordering", "natural"]), 1, "rank1.mtx: L·D·Lᵀ met a zero or tiny pivot 0.00 at column 2");
+    // Cholesky's message is unchanged: the same matrix is positive semidefinite, and its zero pivot is not positive.
+    expectOneLineError(run(["solve", s, "--ordering", "natural"]), 1, "rank1.mtx: the matrix is not positive definite: pivot 0.00 at column 2", "try --method ldlt");
+  });
+
   it("bad options: exit code 2 and a hint", () => {
     const a = file("a.mtx", SPD3);
     expectOneLineError(run(["solve", a, "--frobnicate"]), 2, "unknown option", "--frobnicate");
