@@ -206,9 +206,12 @@ describe("septum solve: a singular matrix is flagged", () => {
     expect(text.code).toBe(0);
     expect(text.out).toContain("backward error");
     expect(text.err.trim().split("\n")).toHaveLength(1);
-    expect(text.err).toMatch(/^septum: warning: path10\.mtx: smallest relative pivot \S+ \(below 1e-10\): the matrix is singular/);
+    // In natural order the rounding-sized pivot is the last one (the leading blocks of a connected Laplacian are
+    // nonsingular, Fiedler 1973): node 10 in the file's 1-based numbering.
+    expect(text.err).toMatch(/^septum: warning: path10\.mtx: smallest relative pivot \S+ at column 10 \(below 1e-10\): the matrix is singular/);
     const json = run(["solve", name, "--ordering", "natural", "--json"]);
     expect(JSON.parse(json.out).smallestPivot).toBeLessThan(1e-12);
+    expect(JSON.parse(json.out).smallestPivotColumn).toBe(10);
     expect(json.err).toContain("septum: warning:");
     // The grounded 5-point grid: every pivot is a Schur complement diagonal, at least λ_min(A) = 8·sin²(π/26) (closed
     // form for k = 12; S⁻¹ is a principal block of A⁻¹), over row maxima 4: ratios ≥ 2·sin²(π/26) ≈ 0.029.
