@@ -259,6 +259,23 @@ describe("septum analyze and report", () => {
     expect(table).toContain("reverse-cuthill-mckee");
   });
 
+  it("analyze --method: the predicted peak is the one of the factorization solve then reserves for that method", () => {
+    // Reference: the store the factorization actually reserves (solve --json peakBytes, FactorStats), for each method;
+    // L·D·Lᵀ needs a scratch block W = L21·D more, which is not empty when some supernode has rows below its columns.
+    expect(run(["generate", "grid2d", "20", "-o", "g20.mtx", "--quiet"]).code).toBe(0);
+    const peak: Record<string, number> = {};
+    for (const method of ["cholesky", "ldlt"]) {
+      const a = JSON.parse(run(["analyze", "g20.mtx", "--json", "--ordering", "nd", "--method", method]).out);
+      const s = JSON.parse(run(["solve", "g20.mtx", "--json", "--ordering", "nd", "--method", method]).out);
+      expect([a.method, a.peakBytes]).toEqual([method, s.peakBytes]);
+      expect(run(["analyze", "g20.mtx", "--ordering", "nd", "--method", method]).out).toMatch(new RegExp(`peak \\d+\\.\\d MiB predicted for ${method}`));
+      peak[method] = a.peakBytes;
+    }
+    expect(peak.ldlt).toBeGreaterThan(peak.cholesky);
+    expect(JSON.parse(run(["analyze", "g20.mtx", "--json", "--ordering", "nd"]).out).peakBytes).toBe(peak.cholesky); // default: Cholesky
+    expectOneLineError(run(["analyze", "g20.mtx", "--method", "lu"]), 2, "unknown method 'lu'");
+  });
+
   it("report writes one self-contained page under a few MB", () => {
     expect(run(["generate", "grid3d", "12", "-o", "c12.mtx", "--quiet"]).code).toBe(0);
     const r = run(["report", "c12.mtx", "-o", "rep/c12.html"]);

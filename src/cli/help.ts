@@ -54,10 +54,12 @@ ${ORDERING_TEXT}
   analyze: `Usage: septum analyze A.mtx [options]
 
 Ordering and symbolic analysis only: n, nnz(A), nnz(L), flops, supernodes,
-factor size and timings. No numeric work.
+factor size, predicted peak memory and timings. No numeric work.
 
 Options:
 ${ORDERING_TEXT}
+  --method M        the factorization whose peak memory is predicted: cholesky
+                    (default) or ldlt (which needs a scratch block as well)
   --compare         run every ordering and print one table
   --json            print JSON (an array of objects with --compare)
   -q, --quiet       no progress line
