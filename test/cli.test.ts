@@ -74,6 +74,21 @@ describe("septum: errors a person can act on", () => {
     expectOneLineError(run(["solve", t, "--ordering", "natural"]), 1, "pivot -3.00 at column 2");
   });
 
+  it("L·D·Lᵀ stopped by a zero pivot says so in L·D·Lᵀ terms, not 'not positive definite', with the column in file numbering", () => {
+    // diag(1, 2, 0, 4): d_j is the diagonal entry itself, so the zero pivot is column 3 whatever the ordering (by hand).
+    const d = file("diag0.mtx", "%%MatrixMarket matrix coordinate real symmetric\n4 4 4\n1 1 1\n2 2 2\n3 3 0\n4 4 4\n");
+    for (const ordering of ["nested-dissection", "minimum-degree", "natural"]) {
+      const r = run(["solve", d, "--method", "ldlt", "--ordering", ordering]);
+      expectOneLineError(r, 1, "diag0.mtx: L·D·Lᵀ met a zero or tiny pivot 0.00 at column 3", "singular", "another --ordering");
+      expect(r.err).not.toContain("positive definite");
+    }
+    // [[1, 2], [2, 4]] (rank 1) in natural order: d1 = 1, d2 = 4 − 2·2/1 = 0 at column 2 (hand computation).
+    const s = file("rank1.mtx", "%%MatrixMarket matrix coordinate real symmetric\n2 2 3\n1 1 1\n2 1 2\n2 2 4\n");
+    expectOneLineError(run(["solve", s, "--method", "ldlt", "--ordering", "natural"]), 1, "rank1.mtx: L·D·Lᵀ met a zero or tiny pivot 0.00 at column 2");
+    // Cholesky's message is unchanged: the same matrix is positive semidefinite, and its zero pivot is not positive.
+    expectOneLineError(run(["solve", s, "--ordering", "natural"]), 1, "rank1.mtx: the matrix is not positive definite: pivot 0.00 at column 2", "try --method ldlt");
+  });
+
   it("bad options: exit code 2 and a hint", () => {
     const a = file("a.mtx", SPD3);
     expectOneLineError(run(["solve", a, "--frobnicate"]), 2, "unknown option", "--frobnicate");
@@ -191,9 +206,12 @@ describe("septum solve: a singular matrix is flagged", () => {
     expect(text.code).toBe(0);
     expect(text.out).toContain("backward error");
     expect(text.err.trim().split("\n")).toHaveLength(1);
-    expect(text.err).toMatch(/^septum: warning: path10\.mtx: smallest relative pivot \S+ \(below 1e-10\): the matrix is singular/);
+    // In natural order the rounding-sized pivot is the last one (the leading blocks of a connected Laplacian are
+    // nonsingular, Fiedler 1973): node 10 in the file's 1-based numbering.
+    expect(text.err).toMatch(/^septum: warning: path10\.mtx: smallest relative pivot \S+ at column 10 \(below 1e-10\): the matrix is singular/);
     const json = run(["solve", name, "--ordering", "natural", "--json"]);
     expect(JSON.parse(json.out).smallestPivot).toBeLessThan(1e-12);
+    expect(JSON.parse(json.out).smallestPivotColumn).toBe(10);
     expect(json.err).toContain("septum: warning:");
     // The grounded 5-point grid: every pivot is a Schur complement diagonal, at least λ_min(A) = 8·sin²(π/26) (closed
     // form for k = 12; S⁻¹ is a principal block of A⁻¹), over row maxima 4: ratios ≥ 2·sin²(π/26) ≈ 0.029.
@@ -239,6 +257,23 @@ describe("septum analyze and report", () => {
     }
     const table = run(["analyze", "m60.mtx", "--compare"]).out;
     expect(table).toContain("reverse-cuthill-mckee");
+  });
+
+  it("analyze --method: the predicted peak is the one of the factorization solve then reserves for that method", () => {
+    // Reference: the store the factorization actually reserves (solve --json peakBytes, FactorStats), for each method;
+    // L·D·Lᵀ needs a scratch block W = L21·D more, which is not empty when some supernode has rows below its columns.
+    expect(run(["generate", "grid2d", "20", "-o", "g20.mtx", "--quiet"]).code).toBe(0);
+    const peak: Record<string, number> = {};
+    for (const method of ["cholesky", "ldlt"]) {
+      const a = JSON.parse(run(["analyze", "g20.mtx", "--json", "--ordering", "nd", "--method", method]).out);
+      const s = JSON.parse(run(["solve", "g20.mtx", "--json", "--ordering", "nd", "--method", method]).out);
+      expect([a.method, a.peakBytes]).toEqual([method, s.peakBytes]);
+      expect(run(["analyze", "g20.mtx", "--ordering", "nd", "--method", method]).out).toMatch(new RegExp(`peak \\d+\\.\\d MiB predicted for ${method}`));
+      peak[method] = a.peakBytes;
+    }
+    expect(peak.ldlt).toBeGreaterThan(peak.cholesky);
+    expect(JSON.parse(run(["analyze", "g20.mtx", "--json", "--ordering", "nd"]).out).peakBytes).toBe(peak.cholesky); // default: Cholesky
+    expectOneLineError(run(["analyze", "g20.mtx", "--method", "lu"]), 2, "unknown method 'lu'");
   });
 
   it("report writes one self-contained page under a few MB", () => {

@@ -1,6 +1,7 @@
 /**
  * FactorStats.smallestPivot = min_j |p_j| / r_j (p_j = L_jj² or d_j, r_j the
- * largest |a_jk| of row j). Outside references: pivots worked by hand on 2×2
+ * largest |a_jk| of row j), and smallestPivotColumn, the column (original
+ * numbering) where it occurs. Outside references: pivots worked by hand on 2×2
  * and 3×3 matrices; the closed-form Cholesky pivots (k+1)/k of tridiag(−1, 2, −1)
  * (Golub & Van Loan, Matrix Computations, §4.3, common practice); a connected
  * graph Laplacian has the eigenvalue 0 with the constant vector, so its last
@@ -97,5 +98,47 @@ describe("smallest relative pivot", () => {
     expect(backwardError).toBeLessThan(100 * n * EPS);
     expect(Math.max(...x.map(Math.abs))).toBeGreaterThan(1e10);
     expect(F.stats.smallestPivot).toBeLessThan(1e-12);
+  });
+});
+
+describe("where the smallest relative pivot is (smallestPivotColumn, 0-based, original numbering)", () => {
+  it("ungrounded path Laplacian: the last node eliminated, column n−1 in natural order and column 0 reversed", () => {
+    // The leading principal blocks of a connected Laplacian are nonsingular and only the full matrix is singular
+    // (Fiedler 1973), so only the pivot eliminated last is of rounding size. Reversed, it is at position n−1 of the new
+    // numbering but column 0 of the original one.
+    const n = 10, A = path(n);
+    for (const [order, column] of [[undefined, n - 1], [reversed(n), 0]] as const) {
+      const F = factorize(analyse(A, order), A);
+      expect([F.stats.smallestPivot < 1e-12, F.stats.smallestPivotColumn]).toEqual([true, column]);
+      const D = factorize(analyse(A, order), A, { method: "ldlt", pivotTolerance: 0 });
+      expect([D.stats.smallestPivot < 1e-12, D.stats.smallestPivotColumn]).toEqual([true, column]);
+    }
+  });
+
+  it("a diagonal matrix with one nearly dependent 2×2 block: the column eliminated second of the pair, in the caller's numbering", () => {
+    // diag(2, ·, 2, 2, ·, 2) with the block [[1, 1], [1, 1 + δ]] on columns 1 and 4, δ = 2⁻³⁰ (1 + δ exact). By hand:
+    // the diagonal columns give ratio 1 and the first of the pair gives 1 over row maximum 1 (or 1+δ over 1+δ); the
+    // second gives δ (natural: (1+δ) − 1, column 4) or 1 − 1/(1+δ) = δ/(1+δ) (column 4 first, the pivot at column 1),
+    // over row maximum 1+δ or 1. Cancellation costs about ε/δ ≈ 2.4e-7 relative accuracy.
+    const delta = 2 ** -30, r = [0, 1, 2, 3, 4, 5, 4], c = [0, 1, 2, 3, 4, 5, 1], v = [2, 1, 2, 2, 1 + delta, 2, 1];
+    const A = SparseMatrix.fromTriplets(6, 6, r, c, v);
+    for (const [order, column, ratio] of [[undefined, 4, delta / (1 + delta)], [reversed(6), 1, delta / (1 + delta)]] as const) {
+      const input = analyse(A, order);
+      if (order) expect(input.inversePermutation[column]).not.toBe(column); // the new numbering would give another answer
+      for (const method of ["cholesky", "ldlt"] as const) {
+        const s = factorize(input, A, { method }).stats;
+        expect(s.smallestPivotColumn).toBe(column);
+        expect(Math.abs(s.smallestPivot / ratio - 1)).toBeLessThan(1e-6);
+      }
+    }
+    // A tiny diagonal entry alone is not a tiny relative pivot: on a diagonal matrix every ratio is a_jj / a_jj = 1.
+    const T = lower([[1, 0, 0], [0, 1e-14, 0], [0, 0, 4]]);
+    expect(Math.abs(factorize(analyse(T), T).stats.smallestPivot - 1)).toBeLessThan(4 * EPS);
+  });
+
+  it("the empty matrix: column −1 and ratio 1", () => {
+    const A = SparseMatrix.fromTriplets(0, 0, [], [], []);
+    const s = factorize(analyse(A), A).stats;
+    expect([s.smallestPivot, s.smallestPivotColumn]).toEqual([1, -1]);
   });
 });

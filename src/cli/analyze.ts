@@ -1,9 +1,11 @@
 /** `septum analyze`: ordering and symbolic statistics, optionally for every ordering. */
 import type { SparseMatrix } from "../matrix/sparse.js";
+import { predictWorkspace } from "../numeric/workspace.js";
+import type { FactorMethod } from "../numeric/types.js";
 import type { OrderingName } from "../solver/analyze.js";
 import type { Analysis } from "../solver/analysis.js";
 import type { CliIO } from "./io.js";
-import { numberOption, orderingChoiceOption, ORDERINGS, positionals, shortOrderingName, type Parsed } from "./options.js";
+import { methodOption, numberOption, orderingChoiceOption, ORDERINGS, positionals, shortOrderingName, type Parsed } from "./options.js";
 import { analyzeWith, loadSymmetric } from "./pipeline.js";
 import { progressLine, type ProgressLine } from "./progress.js";
 import { num, secs, table } from "./format.js";
@@ -31,11 +33,20 @@ function analyzeOne(io: CliIO, A: SparseMatrix, choice: OrderingName | undefined
   return { ordering: analysis.stats.ordering as OrderingName, analysis, seconds: io.now() - t };
 }
 
-function record(a: Analysed) {
+/**
+ * Predicted peak bytes of the factorization by `method`. AnalysisStats.peakBytes
+ * is the Cholesky figure (the analysis does not know the method); L·D·Lᵀ also
+ * needs a scratch block.
+ */
+function peakBytes(a: Analysed, method: FactorMethod): number {
+  return method === "cholesky" ? a.analysis.stats.peakBytes : predictWorkspace(a.analysis.structure, method).peakBytes;
+}
+
+function record(a: Analysed, method: FactorMethod) {
   const s = a.analysis.stats;
   return {
     ordering: a.ordering, n: s.n, nnzA: s.nnzA, nnzL: s.nnzL, flops: s.flops, supernodes: s.supernodes,
-    largestFront: s.largestFront, factorBytes: s.factorBytes, peakBytes: s.peakBytes,
+    largestFront: s.largestFront, factorBytes: s.factorBytes, method, peakBytes: peakBytes(a, method),
     orderingSeconds: s.orderingSeconds, symbolicSeconds: s.symbolicSeconds, seconds: a.seconds,
   };
 }
@@ -58,6 +69,7 @@ export function compareTable(list: readonly Analysed[], factorSeconds?: readonly
 export function analyzeCommand(io: CliIO, p: Parsed): number {
   const [path] = positionals("analyze", p.positionals, ["the matrix file A.mtx"]);
   const choice = orderingChoiceOption(p.values.ordering);
+  const method = methodOption(p.values.method);
   const seed = numberOption("seed", p.values.seed, 1, 0, 2 ** 31 - 1, true);
   const line = progressLine(io, io.stderrIsTTY && !p.values.quiet);
   const A = loadSymmetric(io, path);
@@ -65,7 +77,7 @@ export function analyzeCommand(io: CliIO, p: Parsed): number {
   const ordering = list[0].ordering;
   line.done();
   if (p.values.json) {
-    io.stdout(JSON.stringify(p.values.compare ? list.map(record) : record(list[0])) + "\n");
+    io.stdout(JSON.stringify(p.values.compare ? list.map((a) => record(a, method)) : record(list[0], method)) + "\n");
     return 0;
   }
   const s = list[0].analysis.stats;
@@ -80,7 +92,7 @@ export function analyzeCommand(io: CliIO, p: Parsed): number {
   nnz(L)        ${num(s.nnzL)} (${(s.nnzL / s.nnzA).toFixed(1)}× A)
   flops         ${num(s.flops, true)} (Σ c_j² over the columns of L)
   supernodes    ${num(s.supernodes)} (largest front ${num(s.largestFront)} rows)
-  factor        ${(s.factorBytes / 2 ** 20).toFixed(1)} MiB, peak ${(s.peakBytes / 2 ** 20).toFixed(1)} MiB predicted
+  factor        ${(s.factorBytes / 2 ** 20).toFixed(1)} MiB, peak ${(peakBytes(list[0], method) / 2 ** 20).toFixed(1)} MiB predicted for ${method}
   seconds       ordering ${secs(s.orderingSeconds)}, symbolic ${secs(s.symbolicSeconds)}
 `);
   return 0;

@@ -37,10 +37,10 @@ export const HELP: Record<string, string> = {
 
 Reads the symmetric matrix A, orders it, analyzes, factors and solves A x = b.
 Without --rhs, b = A·1, so the exact solution is all ones and the max error is
-reported too. A warning goes to stderr when the smallest pivot is below 1e-10
-of its row's largest entry: A is singular to working precision (an ungrounded
-Laplacian, a missing constraint), and x may be meaningless even when the
-backward error is small.
+reported too. A warning naming the column goes to stderr when the smallest
+pivot is below 1e-10 of its row's largest entry: A is singular to working
+precision (an ungrounded Laplacian, a missing constraint), and x may be
+meaningless even when the backward error is small.
 
 Options:
   --rhs FILE        right-hand side(s): an n×k 'array' or 'coordinate' file
@@ -54,10 +54,12 @@ ${ORDERING_TEXT}
   analyze: `Usage: septum analyze A.mtx [options]
 
 Ordering and symbolic analysis only: n, nnz(A), nnz(L), flops, supernodes,
-factor size and timings. No numeric work.
+factor size, predicted peak memory and timings. No numeric work.
 
 Options:
 ${ORDERING_TEXT}
+  --method M        the factorization whose peak memory is predicted: cholesky
+                    (default) or ldlt (which needs a scratch block as well)
   --compare         run every ordering and print one table
   --json            print JSON (an array of objects with --compare)
   -q, --quiet       no progress line

@@ -24,7 +24,7 @@ const COMMON: Spec = {
 
 const SPECS: Record<string, Spec> = {
   solve: { ...COMMON, rhs: { type: "string" }, output: { type: "string", short: "o" }, ordering: { type: "string" }, method: { type: "string" }, json: { type: "boolean" }, seed: { type: "string" }, kernels: { type: "string" } },
-  analyze: { ...COMMON, ordering: { type: "string" }, json: { type: "boolean" }, compare: { type: "boolean" }, seed: { type: "string" } },
+  analyze: { ...COMMON, ordering: { type: "string" }, method: { type: "string" }, json: { type: "boolean" }, compare: { type: "boolean" }, seed: { type: "string" } },
   report: { ...COMMON, output: { type: "string", short: "o" }, ordering: { type: "string" }, seed: { type: "string" } },
   generate: { ...COMMON, output: { type: "string", short: "o" }, stencil: { type: "string" }, contrast: { type: "string" }, degree: { type: "string" }, seed: { type: "string" } },
   demo: { ...COMMON, output: { type: "string", short: "o" }, size: { type: "string" } },

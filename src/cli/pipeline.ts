@@ -36,8 +36,15 @@ export function analyzeWith(A: SparseMatrix, ordering: OrderingName | undefined,
   return analyze(A, { ordering, seed, onProgress: progressCallback(line, prefix) });
 }
 
-/** Rephrase a pivot failure in the file's 1-based numbering. */
+/**
+ * Rephrase a pivot failure in the file's 1-based numbering. Cholesky met a
+ * pivot that is not positive: A is not positive definite. L·D·Lᵀ does not
+ * need a definite matrix; it stopped on a zero or tiny pivot, so A is singular
+ * or, without pivoting, too close to singular in this elimination order.
+ */
 export function pivotMessage(path: string, e: NotPositiveDefiniteError, method: string): string {
-  const hint = method === "cholesky" ? " (for a quasi-definite matrix try --method ldlt)" : "";
-  return `${path}: the matrix is not positive definite: ${method === "cholesky" ? "pivot" : "tiny pivot"} ${e.pivot.toPrecision(3)} at column ${e.column + 1}${hint}`;
+  const at = `${e.pivot.toPrecision(3)} at column ${e.column + 1}`;
+  if (method === "cholesky") return `${path}: the matrix is not positive definite: pivot ${at} (for a quasi-definite matrix try --method ldlt)`;
+  return `${path}: L·D·Lᵀ met a zero or tiny pivot ${at}: the matrix is singular, or too close to it for this ordering ` +
+    "without pivoting (if it is nonsingular, another --ordering may avoid the pivot)";
 }

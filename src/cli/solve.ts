@@ -41,13 +41,13 @@ export function solveCommand(io: CliIO, p: Parsed): number {
     writeText(io, String(p.values.output), writeMatrixMarketArray(n, rhs.columns, x, { comment: `solution of ${path} by septum` }));
   }
   const s = analysis.stats, fs = F.stats;
-  if (fs.smallestPivot < SINGULAR_PIVOT) io.stderr(singularWarning(path, fs.smallestPivot));
+  if (fs.smallestPivot < SINGULAR_PIVOT) io.stderr(singularWarning(path, fs.smallestPivot, fs.smallestPivotColumn));
   const seconds = { read: t1 - t0, analyze: t2 - t1, ordering: s.orderingSeconds, factor: t3 - t2, solve: t4 - t3, total: io.now() - t0 };
   if (p.values.json) {
     io.stdout(JSON.stringify({
       file: path, n, nnzA: s.nnzA, nnzL: s.nnzL, flops: s.flops, supernodes: s.supernodes, factorBytes: fs.factorBytes, peakBytes: fs.peakBytes,
       ordering, method, kernels: fs.kernels, gflopsPerSecond: fs.gflopsPerSecond, rightHandSides: rhs.columns,
-      smallestPivot: fs.smallestPivot, residual: q.residual, backwardError: q.backwardError, ...(q.maxError === undefined ? {} : { maxError: q.maxError }), seconds,
+      smallestPivot: fs.smallestPivot, smallestPivotColumn: fs.smallestPivotColumn + 1, residual: q.residual, backwardError: q.backwardError, ...(q.maxError === undefined ? {} : { maxError: q.maxError }), seconds,
     }) + "\n");
     return 0;
   }
@@ -65,9 +65,9 @@ ${p.values.output ? `  wrote      ${p.values.output}\n` : ""}`);
 /** Smallest relative pivot (FactorStats.smallestPivot) below which solve warns that A is singular to working precision. */
 export const SINGULAR_PIVOT = 1e-10;
 
-/** One stderr line, in the form of the CLI's error lines, saying what a rounding-sized pivot means and what to check. */
-function singularWarning(path: string, pivot: number): string {
-  return `septum: warning: ${path}: smallest relative pivot ${sci(pivot)} (below ${SINGULAR_PIVOT}): the matrix is singular or nearly so ` +
+/** One stderr line, in the form of the CLI's error lines, saying what a rounding-sized pivot means, where, and what to check. */
+function singularWarning(path: string, pivot: number, column: number): string {
+  return `septum: warning: ${path}: smallest relative pivot ${sci(pivot)} at column ${column + 1} (below ${SINGULAR_PIVOT}): the matrix is singular or nearly so ` +
     "to working precision; the solution may be meaningless even with a small backward error (ground a graph Laplacian, check the model's constraints)\n";
 }
 

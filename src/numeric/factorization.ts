@@ -35,19 +35,21 @@ export const AUTO_REFINE_GROWTH = 16;
  * store S, with p_j = L_jj² (Cholesky) or d_j (L·D·Lᵀ) and r_j = rowMax[j],
  * the largest |a_jk| of row j of A (new numbering). A pivot is the diagonal
  * of a Schur complement; a ratio near ε means it cancelled to rounding: A is
- * singular or nearly so to working precision. 1 for n = 0.
+ * singular or nearly so to working precision. Returns the ratio (1 for n = 0)
+ * and the new-numbering position of the first pivot in elimination order
+ * reaching it (-1 for n = 0).
  */
-function smallestRelativePivot(st: SupernodalStructure, S: Float64Array, rowMax: Float64Array, cholesky: boolean): number {
-  let low = Infinity;
+function smallestRelativePivot(st: SupernodalStructure, S: Float64Array, rowMax: Float64Array, cholesky: boolean): { ratio: number; position: number } {
+  let low = Infinity, position = -1;
   for (let s = 0; s < st.supernodeCount; s++) {
     const m = st.rowPtr[s + 1] - st.rowPtr[s], f = st.superStart[s], c = st.superStart[s + 1] - f;
     for (let j = 0; j < c; j++) {
       const d = S[st.factorPtr[s] + j * (m + 1)], p = cholesky ? d * d : Math.abs(d);
       const ratio = p / rowMax[f + j]; // rowMax > 0: a zero row gives a zero pivot, which stops the factorization
-      if (ratio < low) low = ratio;
+      if (ratio < low) { low = ratio; position = f + j; }
     }
   }
-  return low === Infinity ? 1 : low;
+  return { ratio: low === Infinity ? 1 : low, position };
 }
 
 /** Options that may change from one refactor to the next. */
@@ -141,12 +143,13 @@ export class Factorization {
     const map = this.map as ScatterMap;
     this.matrix = SparseMatrix.trusted(this.n, this.n, map.colPtr, map.rowIdx, A.values.slice(0, map.target.length));
     this.normInf = symmetricNormInf(this.matrix);
+    const low = smallestRelativePivot(this.input.structure, this.kernels.view(), this.rowMax, this.method === "cholesky");
     this.lastStats = {
       method: this.method, kernels: this.kernels.name, seconds, flops,
       gflopsPerSecond: seconds > 0 ? flops / seconds / 1e9 : 0,
       factorBytes: 8 * this.workspace.factorDoubles, peakBytes: this.workspace.peakBytes,
       supernodes: this.input.structure.supernodeCount, growth: this.growth,
-      smallestPivot: smallestRelativePivot(this.input.structure, this.kernels.view(), this.rowMax, this.method === "cholesky"),
+      smallestPivot: low.ratio, smallestPivotColumn: low.position < 0 ? -1 : this.input.permutation[low.position],
     };
     this.failure = null;
     return this;

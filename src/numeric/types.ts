@@ -109,4 +109,14 @@ export interface FactorStats {
    * value of order 1, but a small value is not required for ill-conditioning.
    */
   readonly smallestPivot: number;
+  /**
+   * Where `smallestPivot` occurs: the column j of A (0-based, original
+   * numbering, as in NotPositiveDefiniteError.column) whose pivot gives the
+   * smallest ratio; on ties the one eliminated first. −1 for an empty matrix.
+   * For a singular matrix it is where the dependence surfaced in the
+   * elimination order (an ungrounded Laplacian: the node eliminated last), a
+   * place to start checking the model rather than proof that this equation
+   * is the wrong one.
+   */
+  readonly smallestPivotColumn: number;
 }

@@ -22,7 +22,12 @@ export interface AnalysisStats {
   readonly largestFront: number;
   /** Bytes of the stored factor (supernodal panels, amalgamation zeros included). */
   readonly factorBytes: number;
-  /** Predicted peak bytes of a Cholesky factorization: factor + contribution stack + scratch. */
+  /**
+   * Predicted peak bytes of a Cholesky factorization: factor + contribution
+   * stack. The analysis does not know the method; L·D·Lᵀ also needs a scratch
+   * block, so its figure is `predictWorkspace(analysis.structure, "ldlt").peakBytes`
+   * (what FactorStats.peakBytes then reports).
+   */
   readonly peakBytes: number;
   /** Name of the ordering used ("user" for a given permutation). */
   readonly ordering: string;
