@@ -19,7 +19,7 @@ export interface NumericInput {
   readonly flops?: number;
 }
 
-/** Default L·D·Lᵀ pivot tolerance, relative to the largest entry of A. */
+/** Default L·D·Lᵀ pivot tolerance, relative to the largest entry of the pivot's own row of A. */
 export const DEFAULT_PIVOT_TOLERANCE = 1e-12;
 
 /** Options of a numeric factorization. */
@@ -79,7 +79,7 @@ export interface FactorStats {
   readonly kernels: string;
   /** Wall-clock seconds of the numeric factorization (assembly + dense kernels). */
   readonly seconds: number;
-  /** Σ c_j² (design.md convention). */
+  /** Σ c_j² over the columns of L, as AnalysisStats.flops. */
   readonly flops: number;
   /** flops / seconds / 1e9. */
   readonly gflopsPerSecond: number;

@@ -27,7 +27,7 @@ export type OrderingChoice = OrderingName | Int32Array;
 
 /** Options of {@link computeOrdering}. */
 export interface OrderingOptions {
-  /** Default: nested dissection above 200 vertices, minimum degree below. */
+  /** Default: nested dissection above 200 vertices, minimum degree up to 200 (analyze's default runs both instead). */
   ordering?: OrderingChoice;
   /** Seed of the randomized steps of nested dissection; same seed, same ordering. Default 1. */
   seed?: number;

@@ -12,7 +12,7 @@ export interface AnalysisStats {
   readonly nnzA: number;
   /** Entries of L, diagonal included, without amalgamation zeros. */
   readonly nnzL: number;
-  /** Σ c_j² over the columns of L (c_j = entries of column j): the Cholesky operation count of design.md. */
+  /** Σ c_j² over the columns of L (c_j = entries of column j): the leading term of Cholesky's flop count, the figure septum reports everywhere. */
   readonly flops: number;
   /** Number of supernodes. */
   readonly supernodes: number;

@@ -32,7 +32,7 @@ export interface SymbolicResult {
   readonly structure: SupernodalStructure;
   /** Σ c_j: entries of L including the diagonal, without amalgamation zeros. */
   readonly nnzL: number;
-  /** Σ c_j² (the convention of design.md). */
+  /** Σ c_j²: the leading term of Cholesky's flop count (AnalysisStats.flops). */
   readonly flops: number;
 }
 
