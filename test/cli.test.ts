@@ -237,6 +237,12 @@ describe("septum analyze and report", () => {
     const analysed = JSON.parse(run(["analyze", name, "--json"]).out);
     expect([analysed.ordering, analysed.flops]).toEqual(["minimum-degree", md]);
     expect(JSON.parse(run(["analyze", name, "--json", "--ordering", "auto"]).out).flops).toBe(md);
+    // report draws nested dissection in detail by default; with auto, the ordering solve would use
+    const drawn = (args: string[]): string => {
+      expect(run(["report", name, "-o", "net.html", "--quiet", ...args]).code).toBe(0);
+      return /<tr class="shown"><th>([^<]+)/.exec(readFileSync(join(dir, "net.html"), "utf8"))?.[1].trim() ?? "";
+    };
+    expect([drawn([]), drawn(["--ordering", "auto"]), drawn(["--ordering", "nd"])]).toEqual(["nested-dissection", "minimum-degree", "nested-dissection"]);
     // On a grid the same rule holds, whichever ordering wins there.
     const grid = file("g30.mtx", writeMatrixMarket(grid2dLower(30), { symmetric: true }));
     const gnd = flopsOf(grid, "nd"), gmd = flopsOf(grid, "md");

@@ -28,9 +28,6 @@ const ORDERING_TEXT = `  --ordering NAME   auto (default: the fewer flops of nes
                     reverse-cuthill-mckee (rcm) or natural
 ${SEED_TEXT}`;
 
-const REPORT_ORDERING_TEXT = `  --ordering NAME   nested-dissection (nd, default), minimum-degree (md),
-                    reverse-cuthill-mckee (rcm) or natural
-${SEED_TEXT}`;
 
 export const HELP: Record<string, string> = {
   solve: `Usage: septum solve A.mtx [--rhs b.mtx] [-o x.mtx] [options]
@@ -72,8 +69,9 @@ ordering's statistics side by side. Large matrices are drawn binned.
 
 Options:
   -o, --output FILE the HTML file to write (required)
-${REPORT_ORDERING_TEXT}
-                    (the ordering drawn in detail; all are compared)
+${ORDERING_TEXT}
+                    (the ordering drawn in detail, default nested-dissection;
+                    all are compared)
   -q, --quiet       no progress line
 `,
   generate: `Usage: septum generate KIND N [options] -o A.mtx
