@@ -58,22 +58,22 @@ describe("contribution stack", () => {
     const input = analyse(A, undefined, false); // identity order, no amalgamation: supernodes {0..4}, {5..7}, {8..137}
     const st = input.structure;
     expect(Array.from(st.superStart)).toEqual([0, 5, 8, 138]);
-    // By hand, 32-column panels, each from its first diagonal entry down: leaf 1 sends a block of order 130,
-    // panels 130 × 32, 98 × 32, 66 × 32, 34 × 32 and 2 × 2: 4160 + 3136 + 2112 + 1088 + 4 = 10500. Leaf 2
-    // sends order 40: 40 × 32 and 8 × 8, 1280 + 64 = 1344. Both wait on the stack when the root starts,
-    // which sends nothing: peak 10500 + 1344 = 11844 (full squares: 130² + 40² = 18500; triangles with
-    // diagonal: 8515 + 820 = 9335). Factor: 135·5 + 43·3 + 130·130 = 17704.
+    // By hand, 64-column panels, each from its first diagonal entry down: leaf 1 sends a block of order 130,
+    // panels 130 × 64, 66 × 64 and 2 × 2: 8320 + 4224 + 4 = 12548. Leaf 2 sends order 40, one panel 40 × 40:
+    // 1600. Both wait on the stack when the root starts, which sends nothing: peak 12548 + 1600 = 14148
+    // (full squares: 130² + 40² = 18500; triangles with diagonal: 8515 + 820 = 9335).
+    // Factor: 135·5 + 43·3 + 130·130 = 17704.
     // L·D·Lᵀ scratch, the largest (m − c)·c: 130·5 = 650.
     const w = predictWorkspace(st, "cholesky");
-    expect(CB_PANEL).toBe(32); // the count below is for 32-column panels
-    expect(w.stackDoubles).toBe(11844);
+    expect(CB_PANEL).toBe(64); // the count below is for 64-column panels
+    expect(w.stackDoubles).toBe(14148);
     expect(w.factorDoubles).toBe(17704);
     expect(predictWorkspace(st, "ldlt").scratchDoubles).toBe(650);
     const M = dense(A), b = randomVector(138, 3);
     for (const method of ["cholesky", "ldlt"] as const) {
       const K = jsKernels();
       const F = factorize(input, A, { kernels: K, method });
-      expect(K.view().length).toBe(17704 + 11844 + (method === "ldlt" ? 650 : 0));
+      expect(K.view().length).toBe(17704 + 14148 + (method === "ldlt" ? 650 : 0));
       expect(F.stats.peakBytes).toBe(8 * K.view().length);
       // Backward stability (Higham 2002, Thm 10.4, from memory), residual computed densely with ml-matrix.
       expect(denseBackwardError(M, F.solve(b), b)).toBeLessThanOrEqual(10 * 138 * EPS);
@@ -86,11 +86,11 @@ describe("contribution stack", () => {
     const st = analysis.structure;
     let largest = 0;
     for (let s = 0; s < st.supernodeCount; s++) largest = Math.max(largest, st.rowPtr[s + 1] - st.rowPtr[s] - (st.superStart[s + 1] - st.superStart[s]));
-    expect(largest).toBeGreaterThan(8 * CB_PANEL); // many panels per large block, else the check below says little
+    expect(largest).toBeGreaterThan(4 * CB_PANEL); // several panels per large block, else the check below says little
     const w = predictWorkspace(st, "cholesky");
     expect(w.stackDoubles).toBe(replayPeak(st, panelStoredDoubles));
-    // Full b×b squares on the same schedule give 1 here, b(b+1)/2 triangles about 0.5, the panels a little more.
-    expect(w.stackDoubles).toBeLessThan(0.65 * replayPeak(st, (b) => b * b));
+    // Full b×b squares on the same schedule give 1, b(b+1)/2 triangles about 0.5, the panels about 0.6 here.
+    expect(w.stackDoubles).toBeLessThan(0.7 * replayPeak(st, (b) => b * b));
     const b = randomVector(n, 7);
     for (const make of [jsKernels, wasmKernels]) {
       for (const method of ["cholesky", "ldlt"] as const) {

@@ -14,13 +14,14 @@ import type { DenseKernels } from "../kernels/types.js";
 
 /**
  * Columns per panel (a power of two: offsets use shifts). A block then takes
- * b(b+1)/2 + about 16·b doubles. Measured (bench/factor-builds.mjs, CPU time):
- * 16, 32 and 64 factor 3-D and 2-D grids within noise of the full squares,
- * 16 the slowest of them on 3-D; 32 keeps blocks of order 150–500 at 0.54–0.63
- * of a square (3-D grids and elasticity) where 64 gives 0.57–0.74.
+ * b(b+1)/2 + about 32·b doubles. Measured with bench/factor-builds.mjs (CPU
+ * time, interleaved runs, 3-D grid 40³, elasticity 16³, 2-D grid 500²): 64
+ * factors at 0.91–0.99 of the time of full squares with the wasm kernels;
+ * 32 ran up to 1.09 there (the wasm GEMM packs its A operand once per call,
+ * so narrower panels pack more) for a stack only 2–5 % smaller there.
  */
-export const CB_PANEL = 32;
-const SHIFT = 5;
+export const CB_PANEL = 64;
+const SHIFT = 6;
 
 /** Doubles of a b×b contribution block in panel storage. */
 export function panelBlockSize(b: number): number {
