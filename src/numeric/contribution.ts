@@ -14,7 +14,7 @@ import type { DenseKernels } from "../kernels/types.js";
 
 /**
  * Columns per panel (a power of two: offsets use shifts). A block then takes
- * b(b+1)/2 + about 32·b doubles. Measured with bench/factor-builds.mjs (CPU
+ * about b²/2 + 32·b doubles. Measured with bench/factor-builds.mjs (CPU
  * time, interleaved runs, 3-D grid 40³, elasticity 16³, 2-D grid 500²): 64
  * factors at 0.91–0.99 of the time of full squares with the wasm kernels;
  * 32 ran up to 1.09 there (the wasm GEMM packs its A operand once per call,
