@@ -16,7 +16,7 @@ import { factorize } from "../src/numeric/index.js";
 import { stackSchedule, predictWorkspace } from "../src/numeric/workspace.js";
 import {
   EPS, analyse, asFull, asUpper, dense, denseBackwardError, gramPlusShift, permuteDense, randomPermutation,
-  randomSpd, randomVector, readFactor, sparseSpd,
+  panelStoredDoubles, randomSpd, randomVector, readFactor, sparseSpd,
 } from "./helpers/numeric.js";
 import { laplacian1d } from "./helpers/patterns.js";
 
@@ -202,7 +202,7 @@ describe("workspace prediction and progress", () => {
       expect(w.factorDoubles).toBe(factor);
       // Brute-force stack simulation over the given postorder (children in index order).
       let top = 0, peak = 0;
-      const cb = (s: number): number => { const b = st.rowPtr[s + 1] - st.rowPtr[s] - (st.superStart[s + 1] - st.superStart[s]); return b * b; };
+      const cb = (s: number): number => panelStoredDoubles(st.rowPtr[s + 1] - st.rowPtr[s] - (st.superStart[s + 1] - st.superStart[s]));
       for (let s = 0; s < st.supernodeCount; s++) {
         peak = Math.max(peak, top + cb(s));
         for (let c = 0; c < s; c++) if (st.superParent[c] === s) top -= cb(c);

@@ -14,13 +14,14 @@
  *
  * Store layout: [ factor panels | contribution stack | scratch ]. Supernode
  * s's panel (m×c, ld m) sits at factorPtr[s] with A's entries already
- * scattered in; its contribution block ((m−c)², ld m−c, lower) is pushed on
- * the stack above its children's, receives their extend-add, then slides down
- * over them.
+ * scattered in; its contribution block (order m−c, lower triangle in column
+ * panels, contribution.ts) is pushed on the stack above its children's,
+ * receives their extend-add and its own update, then slides down over them.
  */
 import type { DenseKernels } from "../kernels/types.js";
 import type { SupernodalStructure } from "../symbolic/types.js";
 import type { FactorMethod } from "./types.js";
+import { columnBase, panelUpdate } from "./contribution.js";
 import { contributionSize } from "./workspace.js";
 
 /** Everything one numeric pass needs; arrays are workspaces owned by the caller. */
@@ -67,22 +68,13 @@ export function multifrontal(p: FrontalPass): PivotFailure | null {
     if (top + size > p.scratch) throw new Error(`internal: contribution stack exceeds its prediction at supernode ${s}`);
     const fail = factorFront(p, s, top);
     if (fail) return fail;
-    // Slide s's block down over its children's (stack pop + push).
-    if (base !== top && size > 0) slideLower(p.kernels.view(), base, top, Math.sqrt(size));
+    // Slide s's block down over its children's (stack pop + push); copyWithin handles the overlap.
+    if (base !== top && size > 0) p.kernels.view().copyWithin(base, top, top + size);
     p.cbOffset[s] = base;
     top = base + size;
     p.between(s);
   }
   return null;
-}
-
-/**
- * Move the lower triangle of the b×b block at `from` down to `to` (< from),
- * column by column in increasing order: a column's destination ends below
- * the next column's source, so nothing unread is overwritten.
- */
-function slideLower(S: Float64Array, to: number, from: number, b: number): void {
-  for (let j = 0; j < b; j++) S.copyWithin(to + j * b + j, from + j * b + j, from + (j + 1) * b);
 }
 
 /** Assemble children into supernode s and factor its front; the contribution block goes at `cb`. */
@@ -92,7 +84,7 @@ function factorFront(p: FrontalPass, s: number, cb: number): PivotFailure | null
   const c = st.superStart[s + 1] - st.superStart[s], b = m - c;
   const panel = st.factorPtr[s];
   const S = K.view();
-  for (let j = 0; j < b; j++) S.fill(0, cb + j * b + j, cb + (j + 1) * b); // lower triangle only
+  S.fill(0, cb, cb + contributionSize(st, s));
   for (let t = 0; t < m; t++) p.local[st.rowIdx[r0 + t]] = t;
   extendAddChildren(p, s, panel, m, c, cb);
   if (p.method === "cholesky") {
@@ -100,7 +92,7 @@ function factorFront(p: FrontalPass, s: number, cb: number): PivotFailure | null
     if (f >= 0) return { supernode: s, column: f, pivot: S[panel + f * (m + 1)] };
     if (b === 0) return null;
     K.trsm(b, c, panel, m, panel + c, m, false);
-    K.gemm(b, b, c, panel + c, m, panel + c, m, cb, b, true);
+    panelUpdate(K, b, c, panel + c, m, panel + c, m, cb);
     return null;
   }
   const bad = ldltPanel(p, s, panel, m, c);
@@ -114,7 +106,7 @@ function factorFront(p: FrontalPass, s: number, cb: number): PivotFailure | null
     S.copyWithin(w + j * b, col, col + b);
     for (let i = 0; i < b; i++) S[col + i] *= inv;
   }
-  K.gemm(b, b, c, w, b, panel + c, m, cb, b, true);
+  panelUpdate(K, b, c, w, b, panel + c, m, cb);
   return null;
 }
 
@@ -158,8 +150,8 @@ function extendAddChildren(p: FrontalPass, s: number, panel: number, m: number, 
     const src = p.cbOffset[ch];
     for (let jj = 0; jj < nb; jj++) {
       const pc = rel[jj];
-      const dst = pc < c ? panel + pc * m : cb + (pc - c) * b - c;
-      const col = src + jj * nb;
+      const dst = pc < c ? panel + pc * m : cb + columnBase(b, pc - c) - c;
+      const col = src + columnBase(nb, jj);
       // Each run of consecutive parent rows is a plain contiguous add.
       for (let a = jj; a < nb; ) {
         const e = runEnd[a], d = dst + rel[a] - a;

@@ -9,6 +9,7 @@
  */
 import { childLists } from "../symbolic/etree.js";
 import type { SupernodalStructure } from "../symbolic/types.js";
+import { panelBlockSize } from "./contribution.js";
 import type { FactorMethod } from "./types.js";
 
 /** Predicted store size, in doubles, and bytes. */
@@ -32,10 +33,9 @@ export interface StackSchedule {
   readonly children: Int32Array;
 }
 
-/** Doubles in the lower-stored contribution block of supernode s: (m − c)². */
+/** Doubles of the contribution block of supernode s (order b = m − c, panel storage of contribution.ts). */
 export function contributionSize(st: SupernodalStructure, s: number): number {
-  const b = st.rowPtr[s + 1] - st.rowPtr[s] - (st.superStart[s + 1] - st.superStart[s]);
-  return b * b;
+  return panelBlockSize(st.rowPtr[s + 1] - st.rowPtr[s] - (st.superStart[s + 1] - st.superStart[s]));
 }
 
 /** Liu's child ordering and the postorder it induces; peak of the stack over that order. */

@@ -8,6 +8,7 @@ import { Matrix } from "ml-matrix";
 import { adjacencyGraph } from "../../src/graph/adjacency.js";
 import type { DenseKernels } from "../../src/kernels/types.js";
 import { SparseMatrix } from "../../src/matrix/sparse.js";
+import { CB_PANEL } from "../../src/numeric/contribution.js";
 import type { NumericInput } from "../../src/numeric/types.js";
 import { symbolicFactorization, type AmalgamationOptions } from "../../src/symbolic/index.js";
 
@@ -167,4 +168,15 @@ export function blockDiagonal(parts: SparseMatrix[]): SparseMatrix {
     off += P.ncols;
   }
   return SparseMatrix.fromTriplets(off, off, r, c, v);
+}
+
+/**
+ * Doubles the factorization stores for a contribution block of order b, counted
+ * column by column: column j keeps rows j0..b−1, j0 the first column of its
+ * CB_PANEL-column panel (the layout of src/numeric/contribution.ts).
+ */
+export function panelStoredDoubles(b: number): number {
+  let total = 0;
+  for (let j = 0; j < b; j++) total += b - CB_PANEL * Math.floor(j / CB_PANEL);
+  return total;
 }
