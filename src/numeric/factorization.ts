@@ -10,9 +10,9 @@ import { jsKernels } from "../kernels/js/index.js";
 import type { DenseKernels } from "../kernels/types.js";
 import type { SupernodalStructure } from "../symbolic/types.js";
 import { SparseMatrix } from "../matrix/sparse.js";
-import { requireSquare, requireSymmetric, symmetricNormInf } from "../matrix/symmetric.js";
+import { requireSquare, requireSymmetric } from "../matrix/symmetric.js";
 import { multifrontal, type PivotFailure } from "./multifrontal.js";
-import { buildScatterMap, samePattern, scatterValues, type ScatterMap } from "./scatter.js";
+import { buildScatterMap, rowStatistics, samePattern, type ScatterMap } from "./scatter.js";
 import { ldltGrowth } from "./growth.js";
 import { refineSolve } from "./refine.js";
 import { backwardSweep, diagonalSweep, forwardSweep, largestBelow } from "./triangular.js";
@@ -88,6 +88,8 @@ export class Factorization {
   private readonly rowMax: Float64Array;
   /** n doubles reused by every factorization: row maxima in the input numbering, then the growth sums. */
   private readonly scratchN: Float64Array;
+  /** n doubles: row sums of |A| (rowStatistics). */
+  private readonly rowSums: Float64Array;
   /** L·D·Lᵀ pivot floors (pivotFloors), allocated on the first L·D·Lᵀ factorization. */
   private floors: Float64Array | null = null;
   private lastStats: FactorStats | null = null;
@@ -110,6 +112,7 @@ export class Factorization {
     const st = input.structure;
     this.rowMax = new Float64Array(st.n);
     this.scratchN = new Float64Array(st.n);
+    this.rowSums = new Float64Array(st.n);
     this.frontWork = {
       cbOffset: new Float64Array(st.supernodeCount), local: new Int32Array(st.n), rel: new Int32Array(st.n), runEnd: new Int32Array(st.n),
     };
@@ -131,7 +134,7 @@ export class Factorization {
     try {
       this.load(A);
       this.rowMaxima(A);
-      this.run(options);
+      this.run(options, A.values);
       this.growth = this.method === "ldlt" ? ldltGrowth(this.input.structure, this.kernels.view(), largest(this.rowMax), this.scratchN) : 1;
     } catch (e) {
       this.failure = e instanceof Error ? `the last factorization failed: ${e.message}` : "the last factorization failed";
@@ -141,8 +144,7 @@ export class Factorization {
     const flops = this.cumulativeFlops[this.cumulativeFlops.length - 1] || 0;
     // Refinement needs the matrix that was factored, even if the caller later changes A's values.
     const map = this.map as ScatterMap;
-    this.matrix = SparseMatrix.trusted(this.n, this.n, map.colPtr, map.rowIdx, A.values.slice(0, map.target.length));
-    this.normInf = symmetricNormInf(this.matrix);
+    this.matrix = SparseMatrix.trusted(this.n, this.n, map.colPtr, map.rowIdx, A.values.slice(0, map.colPtr[this.n]));
     const low = smallestRelativePivot(this.input.structure, this.kernels.view(), this.rowMax, this.method === "cholesky");
     this.lastStats = {
       method: this.method, kernels: this.kernels.name, seconds, flops,
@@ -155,7 +157,7 @@ export class Factorization {
     return this;
   }
 
-  /** Check A, build or verify the scatter map, reserve the store and scatter A into the zeroed factor. */
+  /** Check A, build or verify the scatter map and reserve the store (the pass assembles A supernode by supernode). */
   private load(A: SparseMatrix): void {
     requireSquare(A);
     if (A.ncols !== this.n) throw new PatternMismatchError(`matrix has order ${A.ncols}, the analysis was made for order ${this.n}`);
@@ -165,13 +167,11 @@ export class Factorization {
     }
     if (this.map.form === "full") requireSymmetric(A);
     const w = this.workspace;
-    const S = this.kernels.reserve(w.factorDoubles + w.stackDoubles + w.scratchDoubles);
-    S.fill(0, 0, w.factorDoubles);
-    scatterValues(this.map, A, S);
+    this.kernels.reserve(w.factorDoubles + w.stackDoubles + w.scratchDoubles);
   }
 
   /** The multifrontal pass with progress and abort between supernodes. */
-  private run(options: RefactorOptions): void {
+  private run(options: RefactorOptions, values: Float64Array): void {
     const { signal, onProgress } = options;
     if (signal?.aborted) throw new AbortedError("factorization aborted before it started");
     const st = this.input.structure, w = this.workspace, cum = this.cumulativeFlops;
@@ -186,7 +186,7 @@ export class Factorization {
       }
     };
     const fail = multifrontal({
-      st, kernels: this.kernels, method: this.method, order: this.schedule.order,
+      st, kernels: this.kernels, method: this.method, order: this.schedule.order, map: this.map as ScatterMap, values,
       childPtr: this.schedule.childPtr, children: this.schedule.children,
       stackBase: w.factorDoubles, scratch: w.factorDoubles + w.stackDoubles,
       tiny: this.method === "ldlt" ? this.pivotFloors() : EMPTY, // Cholesky stops on pivots <= 0 only
@@ -197,21 +197,14 @@ export class Factorization {
   }
 
   /**
-   * The largest |a_jk| of each row j of the symmetric matrix, into rowMax in
-   * the new numbering (any storage form: each stored entry counts for its row
-   * and its column).
+   * One pass over A's values (rowStatistics): rejects non-finite entries,
+   * sets ‖A‖∞ and the largest |a_jk| of each row j into rowMax in the new
+   * numbering.
    */
   private rowMaxima(A: SparseMatrix): void {
-    const n = this.n, row = this.scratchN.fill(0), { colPtr, rowIdx, values } = A;
-    for (let j = 0; j < n; j++) {
-      for (let q = colPtr[j]; q < colPtr[j + 1]; q++) {
-        const i = rowIdx[q], a = Math.abs(values[q]);
-        if (a > row[i]) row[i] = a;
-        if (a > row[j]) row[j] = a;
-      }
-    }
-    const perm = this.input.permutation;
-    for (let k = 0; k < n; k++) this.rowMax[k] = row[perm[k]];
+    this.normInf = rowStatistics(this.map as ScatterMap, A.values, this.scratchN, this.rowSums);
+    const perm = this.input.permutation, row = this.scratchN;
+    for (let k = 0; k < this.n; k++) this.rowMax[k] = row[perm[k]];
   }
 
   /**

@@ -13,8 +13,8 @@
  * whose peak is predicted (workspace.ts) and reserved once.
  *
  * Store layout: [ factor panels | contribution stack | scratch ]. Supernode
- * s's panel (m×c, ld m) sits at factorPtr[s] with A's entries already
- * scattered in; its contribution block (order m−c, lower triangle in column
+ * s's panel (m×c, ld m) sits at factorPtr[s]; it is zeroed and receives A's
+ * entries (scatter.ts) right before s is factored. Its contribution block (order m−c, lower triangle in column
  * panels, contribution.ts) is pushed on the stack above its children's,
  * receives their extend-add and its own update, then slides down over them.
  */
@@ -22,6 +22,7 @@ import type { DenseKernels } from "../kernels/types.js";
 import type { SupernodalStructure } from "../symbolic/types.js";
 import type { FactorMethod } from "./types.js";
 import { columnBase, panelUpdate } from "./contribution.js";
+import { assemblePanel, type ScatterMap } from "./scatter.js";
 import { contributionSize } from "./workspace.js";
 
 /** Everything one numeric pass needs; arrays are workspaces owned by the caller. */
@@ -30,6 +31,9 @@ export interface FrontalPass {
   readonly kernels: DenseKernels;
   readonly method: FactorMethod;
   readonly order: Int32Array;
+  /** A's entries by supernode and their values (assembled into each panel right before it is factored). */
+  readonly map: ScatterMap;
+  readonly values: Float64Array;
   /** Children of each supernode in processing order (see stackSchedule). */
   readonly childPtr: Int32Array;
   readonly children: Int32Array;
@@ -84,6 +88,7 @@ function factorFront(p: FrontalPass, s: number, cb: number): PivotFailure | null
   const c = st.superStart[s + 1] - st.superStart[s], b = m - c;
   const panel = st.factorPtr[s];
   const S = K.view();
+  assemblePanel(p.map, s, p.values, S, panel, m * c);
   S.fill(0, cb, cb + contributionSize(st, s));
   for (let t = 0; t < m; t++) p.local[st.rowIdx[r0 + t]] = t;
   extendAddChildren(p, s, panel, m, c, cb);
