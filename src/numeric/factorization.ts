@@ -8,7 +8,6 @@
 import { AbortedError, InputError, NotPositiveDefiniteError, PatternMismatchError, SeptumError } from "../errors.js";
 import { jsKernels } from "../kernels/js/index.js";
 import type { DenseKernels } from "../kernels/types.js";
-import type { SupernodalStructure } from "../symbolic/types.js";
 import { SparseMatrix } from "../matrix/sparse.js";
 import { requireSquare, requireSymmetric } from "../matrix/symmetric.js";
 import { multifrontal, type PivotFailure } from "./multifrontal.js";
@@ -29,28 +28,6 @@ const EMPTY = new Float64Array(0);
  * plain sweeps may then reach n·ε·ρ (growth.ts), far from Cholesky's.
  */
 export const AUTO_REFINE_GROWTH = 16;
-
-/**
- * Smallest relative pivot min_j |p_j| / r_j over the diagonal of the factor in
- * store S, with p_j = L_jj² (Cholesky) or d_j (L·D·Lᵀ) and r_j = rowMax[j],
- * the largest |a_jk| of row j of A (new numbering). A pivot is the diagonal
- * of a Schur complement; a ratio near ε means it cancelled to rounding: A is
- * singular or nearly so to working precision. Returns the ratio (1 for n = 0)
- * and the new-numbering position of the first pivot in elimination order
- * reaching it (-1 for n = 0).
- */
-function smallestRelativePivot(st: SupernodalStructure, S: Float64Array, rowMax: Float64Array, cholesky: boolean): { ratio: number; position: number } {
-  let low = Infinity, position = -1;
-  for (let s = 0; s < st.supernodeCount; s++) {
-    const m = st.rowPtr[s + 1] - st.rowPtr[s], f = st.superStart[s], c = st.superStart[s + 1] - f;
-    for (let j = 0; j < c; j++) {
-      const d = S[st.factorPtr[s] + j * (m + 1)], p = cholesky ? d * d : Math.abs(d);
-      const ratio = p / rowMax[f + j]; // rowMax > 0: a zero row gives a zero pivot, which stops the factorization
-      if (ratio < low) { low = ratio; position = f + j; }
-    }
-  }
-  return { ratio: low === Infinity ? 1 : low, position };
-}
 
 /** Options that may change from one refactor to the next. */
 export interface RefactorOptions {
@@ -93,6 +70,16 @@ export class Factorization {
   /** L·D·Lᵀ pivot floors (pivotFloors), allocated on the first L·D·Lᵀ factorization. */
   private floors: Float64Array | null = null;
   private lastStats: FactorStats | null = null;
+  /**
+   * Smallest relative pivot min_j |p_j| / r_j over the diagonal of the
+   * factor, with p_j = L_jj² (Cholesky) or d_j (L·D·Lᵀ) and r_j = rowMax[j],
+   * the largest |a_jk| of row j of A (new numbering), folded in by the pass
+   * after each supernode (multifrontal.ts). A pivot is the diagonal of a
+   * Schur complement; a ratio near ε means it cancelled to rounding: A is
+   * singular or nearly so to working precision. Ratio 1 for n = 0; position
+   * is the new-numbering column of the first pivot reaching it (-1 for n = 0).
+   */
+  private readonly smallest = { ratio: Infinity, position: -1 };
 
   /** @internal Use `factorize`. */
   constructor(input: NumericInput, options: FactorOptions = {}) {
@@ -134,7 +121,7 @@ export class Factorization {
     try {
       this.load(A);
       this.rowMaxima(A);
-      this.run(options, A.values);
+      this.run(options, A.values, this.smallest);
       this.growth = this.method === "ldlt" ? ldltGrowth(this.input.structure, this.kernels.view(), largest(this.rowMax), this.scratchN) : 1;
     } catch (e) {
       this.failure = e instanceof Error ? `the last factorization failed: ${e.message}` : "the last factorization failed";
@@ -145,13 +132,13 @@ export class Factorization {
     // Refinement needs the matrix that was factored, even if the caller later changes A's values.
     const map = this.map as ScatterMap;
     this.matrix = SparseMatrix.trusted(this.n, this.n, map.colPtr, map.rowIdx, A.values.slice(0, map.colPtr[this.n]));
-    const low = smallestRelativePivot(this.input.structure, this.kernels.view(), this.rowMax, this.method === "cholesky");
+    const low = this.smallest;
     this.lastStats = {
       method: this.method, kernels: this.kernels.name, seconds, flops,
       gflopsPerSecond: seconds > 0 ? flops / seconds / 1e9 : 0,
       factorBytes: 8 * this.workspace.factorDoubles, peakBytes: this.workspace.peakBytes,
       supernodes: this.input.structure.supernodeCount, growth: this.growth,
-      smallestPivot: low.ratio, smallestPivotColumn: low.position < 0 ? -1 : this.input.permutation[low.position],
+      smallestPivot: low.ratio === Infinity ? 1 : low.ratio, smallestPivotColumn: low.position < 0 ? -1 : this.input.permutation[low.position],
     };
     this.failure = null;
     return this;
@@ -171,9 +158,11 @@ export class Factorization {
   }
 
   /** The multifrontal pass with progress and abort between supernodes. */
-  private run(options: RefactorOptions, values: Float64Array): void {
+  private run(options: RefactorOptions, values: Float64Array, smallest: { ratio: number; position: number }): void {
     const { signal, onProgress } = options;
     if (signal?.aborted) throw new AbortedError("factorization aborted before it started");
+    smallest.ratio = Infinity;
+    smallest.position = -1;
     const st = this.input.structure, w = this.workspace, cum = this.cumulativeFlops;
     const total = cum[cum.length - 1] || 1;
     let step = 0, reported = 0;
@@ -191,6 +180,7 @@ export class Factorization {
       stackBase: w.factorDoubles, scratch: w.factorDoubles + w.stackDoubles,
       tiny: this.method === "ldlt" ? this.pivotFloors() : EMPTY, // Cholesky stops on pivots <= 0 only
       ...this.frontWork,
+      rowMax: this.rowMax, smallest,
       between,
     });
     if (fail) throw this.pivotError(fail);
