@@ -8,11 +8,10 @@
 import { AbortedError, InputError, NotPositiveDefiniteError, PatternMismatchError, SeptumError } from "../errors.js";
 import { jsKernels } from "../kernels/js/index.js";
 import type { DenseKernels } from "../kernels/types.js";
-import type { SupernodalStructure } from "../symbolic/types.js";
 import { SparseMatrix } from "../matrix/sparse.js";
-import { requireSquare, requireSymmetric, symmetricNormInf } from "../matrix/symmetric.js";
+import { requireSquare, requireSymmetric } from "../matrix/symmetric.js";
 import { multifrontal, type PivotFailure } from "./multifrontal.js";
-import { buildScatterMap, samePattern, scatterValues, type ScatterMap } from "./scatter.js";
+import { buildScatterMap, rowStatistics, samePattern, type ScatterMap } from "./scatter.js";
 import { ldltGrowth } from "./growth.js";
 import { refineSolve } from "./refine.js";
 import { backwardSweep, diagonalSweep, forwardSweep, largestBelow } from "./triangular.js";
@@ -29,28 +28,6 @@ const EMPTY = new Float64Array(0);
  * plain sweeps may then reach n·ε·ρ (growth.ts), far from Cholesky's.
  */
 export const AUTO_REFINE_GROWTH = 16;
-
-/**
- * Smallest relative pivot min_j |p_j| / r_j over the diagonal of the factor in
- * store S, with p_j = L_jj² (Cholesky) or d_j (L·D·Lᵀ) and r_j = rowMax[j],
- * the largest |a_jk| of row j of A (new numbering). A pivot is the diagonal
- * of a Schur complement; a ratio near ε means it cancelled to rounding: A is
- * singular or nearly so to working precision. Returns the ratio (1 for n = 0)
- * and the new-numbering position of the first pivot in elimination order
- * reaching it (-1 for n = 0).
- */
-function smallestRelativePivot(st: SupernodalStructure, S: Float64Array, rowMax: Float64Array, cholesky: boolean): { ratio: number; position: number } {
-  let low = Infinity, position = -1;
-  for (let s = 0; s < st.supernodeCount; s++) {
-    const m = st.rowPtr[s + 1] - st.rowPtr[s], f = st.superStart[s], c = st.superStart[s + 1] - f;
-    for (let j = 0; j < c; j++) {
-      const d = S[st.factorPtr[s] + j * (m + 1)], p = cholesky ? d * d : Math.abs(d);
-      const ratio = p / rowMax[f + j]; // rowMax > 0: a zero row gives a zero pivot, which stops the factorization
-      if (ratio < low) { low = ratio; position = f + j; }
-    }
-  }
-  return { ratio: low === Infinity ? 1 : low, position };
-}
 
 /** Options that may change from one refactor to the next. */
 export interface RefactorOptions {
@@ -88,9 +65,21 @@ export class Factorization {
   private readonly rowMax: Float64Array;
   /** n doubles reused by every factorization: row maxima in the input numbering, then the growth sums. */
   private readonly scratchN: Float64Array;
+  /** n doubles: row sums of |A| (rowStatistics). */
+  private readonly rowSums: Float64Array;
   /** L·D·Lᵀ pivot floors (pivotFloors), allocated on the first L·D·Lᵀ factorization. */
   private floors: Float64Array | null = null;
   private lastStats: FactorStats | null = null;
+  /**
+   * Smallest relative pivot min_j |p_j| / r_j over the diagonal of the
+   * factor, with p_j = L_jj² (Cholesky) or d_j (L·D·Lᵀ) and r_j = rowMax[j],
+   * the largest |a_jk| of row j of A (new numbering), folded in by the pass
+   * after each supernode (multifrontal.ts). A pivot is the diagonal of a
+   * Schur complement; a ratio near ε means it cancelled to rounding: A is
+   * singular or nearly so to working precision. Ratio 1 for n = 0; position
+   * is the new-numbering column of the first pivot reaching it (-1 for n = 0).
+   */
+  private readonly smallest = { ratio: Infinity, position: -1 };
 
   /** @internal Use `factorize`. */
   constructor(input: NumericInput, options: FactorOptions = {}) {
@@ -110,6 +99,7 @@ export class Factorization {
     const st = input.structure;
     this.rowMax = new Float64Array(st.n);
     this.scratchN = new Float64Array(st.n);
+    this.rowSums = new Float64Array(st.n);
     this.frontWork = {
       cbOffset: new Float64Array(st.supernodeCount), local: new Int32Array(st.n), rel: new Int32Array(st.n), runEnd: new Int32Array(st.n),
     };
@@ -131,7 +121,7 @@ export class Factorization {
     try {
       this.load(A);
       this.rowMaxima(A);
-      this.run(options);
+      this.run(options, A.values, this.smallest);
       this.growth = this.method === "ldlt" ? ldltGrowth(this.input.structure, this.kernels.view(), largest(this.rowMax), this.scratchN) : 1;
     } catch (e) {
       this.failure = e instanceof Error ? `the last factorization failed: ${e.message}` : "the last factorization failed";
@@ -141,21 +131,20 @@ export class Factorization {
     const flops = this.cumulativeFlops[this.cumulativeFlops.length - 1] || 0;
     // Refinement needs the matrix that was factored, even if the caller later changes A's values.
     const map = this.map as ScatterMap;
-    this.matrix = SparseMatrix.trusted(this.n, this.n, map.colPtr, map.rowIdx, A.values.slice(0, map.target.length));
-    this.normInf = symmetricNormInf(this.matrix);
-    const low = smallestRelativePivot(this.input.structure, this.kernels.view(), this.rowMax, this.method === "cholesky");
+    this.matrix = SparseMatrix.trusted(this.n, this.n, map.colPtr, map.rowIdx, A.values.slice(0, map.colPtr[this.n]));
+    const low = this.smallest;
     this.lastStats = {
       method: this.method, kernels: this.kernels.name, seconds, flops,
       gflopsPerSecond: seconds > 0 ? flops / seconds / 1e9 : 0,
       factorBytes: 8 * this.workspace.factorDoubles, peakBytes: this.workspace.peakBytes,
       supernodes: this.input.structure.supernodeCount, growth: this.growth,
-      smallestPivot: low.ratio, smallestPivotColumn: low.position < 0 ? -1 : this.input.permutation[low.position],
+      smallestPivot: low.ratio === Infinity ? 1 : low.ratio, smallestPivotColumn: low.position < 0 ? -1 : this.input.permutation[low.position],
     };
     this.failure = null;
     return this;
   }
 
-  /** Check A, build or verify the scatter map, reserve the store and scatter A into the zeroed factor. */
+  /** Check A, build or verify the scatter map and reserve the store (the pass assembles A supernode by supernode). */
   private load(A: SparseMatrix): void {
     requireSquare(A);
     if (A.ncols !== this.n) throw new PatternMismatchError(`matrix has order ${A.ncols}, the analysis was made for order ${this.n}`);
@@ -165,15 +154,15 @@ export class Factorization {
     }
     if (this.map.form === "full") requireSymmetric(A);
     const w = this.workspace;
-    const S = this.kernels.reserve(w.factorDoubles + w.stackDoubles + w.scratchDoubles);
-    S.fill(0, 0, w.factorDoubles);
-    scatterValues(this.map, A, S);
+    this.kernels.reserve(w.factorDoubles + w.stackDoubles + w.scratchDoubles);
   }
 
   /** The multifrontal pass with progress and abort between supernodes. */
-  private run(options: RefactorOptions): void {
+  private run(options: RefactorOptions, values: Float64Array, smallest: { ratio: number; position: number }): void {
     const { signal, onProgress } = options;
     if (signal?.aborted) throw new AbortedError("factorization aborted before it started");
+    smallest.ratio = Infinity;
+    smallest.position = -1;
     const st = this.input.structure, w = this.workspace, cum = this.cumulativeFlops;
     const total = cum[cum.length - 1] || 1;
     let step = 0, reported = 0;
@@ -186,32 +175,26 @@ export class Factorization {
       }
     };
     const fail = multifrontal({
-      st, kernels: this.kernels, method: this.method, order: this.schedule.order,
+      st, kernels: this.kernels, method: this.method, order: this.schedule.order, map: this.map as ScatterMap, values,
       childPtr: this.schedule.childPtr, children: this.schedule.children,
       stackBase: w.factorDoubles, scratch: w.factorDoubles + w.stackDoubles,
       tiny: this.method === "ldlt" ? this.pivotFloors() : EMPTY, // Cholesky stops on pivots <= 0 only
       ...this.frontWork,
+      rowMax: this.rowMax, smallest,
       between,
     });
     if (fail) throw this.pivotError(fail);
   }
 
   /**
-   * The largest |a_jk| of each row j of the symmetric matrix, into rowMax in
-   * the new numbering (any storage form: each stored entry counts for its row
-   * and its column).
+   * One pass over A's values (rowStatistics): rejects non-finite entries,
+   * sets ‖A‖∞ and the largest |a_jk| of each row j into rowMax in the new
+   * numbering.
    */
   private rowMaxima(A: SparseMatrix): void {
-    const n = this.n, row = this.scratchN.fill(0), { colPtr, rowIdx, values } = A;
-    for (let j = 0; j < n; j++) {
-      for (let q = colPtr[j]; q < colPtr[j + 1]; q++) {
-        const i = rowIdx[q], a = Math.abs(values[q]);
-        if (a > row[i]) row[i] = a;
-        if (a > row[j]) row[j] = a;
-      }
-    }
-    const perm = this.input.permutation;
-    for (let k = 0; k < n; k++) this.rowMax[k] = row[perm[k]];
+    this.normInf = rowStatistics(this.map as ScatterMap, A.values, this.scratchN, this.rowSums);
+    const perm = this.input.permutation, row = this.scratchN;
+    for (let k = 0; k < this.n; k++) this.rowMax[k] = row[perm[k]];
   }
 
   /**

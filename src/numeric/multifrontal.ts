@@ -13,8 +13,8 @@
  * whose peak is predicted (workspace.ts) and reserved once.
  *
  * Store layout: [ factor panels | contribution stack | scratch ]. Supernode
- * s's panel (m×c, ld m) sits at factorPtr[s] with A's entries already
- * scattered in; its contribution block (order m−c, lower triangle in column
+ * s's panel (m×c, ld m) sits at factorPtr[s]; it is zeroed and receives A's
+ * entries (scatter.ts) right before s is factored. Its contribution block (order m−c, lower triangle in column
  * panels, contribution.ts) is pushed on the stack above its children's,
  * receives their extend-add and its own update, then slides down over them.
  */
@@ -22,6 +22,7 @@ import type { DenseKernels } from "../kernels/types.js";
 import type { SupernodalStructure } from "../symbolic/types.js";
 import type { FactorMethod } from "./types.js";
 import { columnBase, panelUpdate } from "./contribution.js";
+import { assemblePanel, type ScatterMap } from "./scatter.js";
 import { contributionSize } from "./workspace.js";
 
 /** Everything one numeric pass needs; arrays are workspaces owned by the caller. */
@@ -30,6 +31,9 @@ export interface FrontalPass {
   readonly kernels: DenseKernels;
   readonly method: FactorMethod;
   readonly order: Int32Array;
+  /** A's entries by supernode and their values (assembled into each panel right before it is factored). */
+  readonly map: ScatterMap;
+  readonly values: Float64Array;
   /** Children of each supernode in processing order (see stackSchedule). */
   readonly childPtr: Int32Array;
   readonly children: Int32Array;
@@ -44,6 +48,10 @@ export interface FrontalPass {
   readonly local: Int32Array;
   readonly rel: Int32Array;
   readonly runEnd: Int32Array;
+  /** Largest |a_jk| of each row j (new numbering), for the smallest relative pivot. */
+  readonly rowMax: Float64Array;
+  /** Out: smallest relative pivot min_j p_j / rowMax[j] and its column (see Factorization). */
+  readonly smallest: { ratio: number; position: number };
   /** Called between supernodes with the supernode just done; may throw (abort). */
   readonly between: (s: number) => void;
 }
@@ -58,6 +66,8 @@ export interface PivotFailure {
 /** Run the pass over all supernodes. Returns null on success or the failing pivot. */
 export function multifrontal(p: FrontalPass): PivotFailure | null {
   const { st, order, childPtr, children } = p;
+  // No reserve happens during the pass, so one view of the store serves it all.
+  const S = p.kernels.view();
   let top = p.stackBase;
   for (let k = 0; k < order.length; k++) {
     const s = order[k];
@@ -66,10 +76,11 @@ export function multifrontal(p: FrontalPass): PivotFailure | null {
     const size = contributionSize(st, s);
     // Typed arrays drop out-of-range writes silently: guard the predicted bound.
     if (top + size > p.scratch) throw new Error(`internal: contribution stack exceeds its prediction at supernode ${s}`);
-    const fail = factorFront(p, s, top);
+    const fail = factorFront(p, S, s, top);
     if (fail) return fail;
+    relativePivots(p, S, s);
     // Slide s's block down over its children's (stack pop + push); copyWithin handles the overlap.
-    if (base !== top && size > 0) p.kernels.view().copyWithin(base, top, top + size);
+    if (base !== top && size > 0) S.copyWithin(base, top, top + size);
     p.cbOffset[s] = base;
     top = base + size;
     p.between(s);
@@ -77,16 +88,30 @@ export function multifrontal(p: FrontalPass): PivotFailure | null {
   return null;
 }
 
+/**
+ * Fold s's pivots into p.smallest: p_j = L_jj² (Cholesky) or |d_j|, over
+ * rowMax[j]; ties go to the lower column, as in a scan in column order.
+ */
+function relativePivots(p: FrontalPass, S: Float64Array, s: number): void {
+  const st = p.st, m = st.rowPtr[s + 1] - st.rowPtr[s], f = st.superStart[s], c = st.superStart[s + 1] - f;
+  const panel = st.factorPtr[s], cholesky = p.method === "cholesky", low = p.smallest;
+  for (let j = 0; j < c; j++) {
+    const d = S[panel + j * (m + 1)], piv = cholesky ? d * d : Math.abs(d);
+    const ratio = piv / p.rowMax[f + j]; // rowMax > 0: a zero row gives a zero pivot, which stops the factorization
+    if (ratio < low.ratio || (ratio === low.ratio && f + j < low.position)) { low.ratio = ratio; low.position = f + j; }
+  }
+}
+
 /** Assemble children into supernode s and factor its front; the contribution block goes at `cb`. */
-function factorFront(p: FrontalPass, s: number, cb: number): PivotFailure | null {
+function factorFront(p: FrontalPass, S: Float64Array, s: number, cb: number): PivotFailure | null {
   const { st, kernels: K } = p;
   const r0 = st.rowPtr[s], m = st.rowPtr[s + 1] - r0;
   const c = st.superStart[s + 1] - st.superStart[s], b = m - c;
   const panel = st.factorPtr[s];
-  const S = K.view();
+  assemblePanel(p.map, s, p.values, S, panel, m * c);
   S.fill(0, cb, cb + contributionSize(st, s));
   for (let t = 0; t < m; t++) p.local[st.rowIdx[r0 + t]] = t;
-  extendAddChildren(p, s, panel, m, c, cb);
+  extendAddChildren(p, S, s, panel, m, c, cb);
   if (p.method === "cholesky") {
     const f = K.potrf(c, panel, m);
     if (f >= 0) return { supernode: s, column: f, pivot: S[panel + f * (m + 1)] };
@@ -95,7 +120,7 @@ function factorFront(p: FrontalPass, s: number, cb: number): PivotFailure | null
     panelUpdate(K, b, c, panel + c, m, panel + c, m, cb);
     return null;
   }
-  const bad = ldltPanel(p, s, panel, m, c);
+  const bad = ldltPanel(p, S, s, panel, m, c);
   if (bad) return bad;
   if (b === 0) return null;
   K.trsm(b, c, panel, m, panel + c, m, true);
@@ -117,8 +142,8 @@ function factorFront(p: FrontalPass, s: number, cb: number): PivotFailure | null
  * pivot is computed the same whether or not a later check rejects it, so the
  * first failing column is the same as with a per-column test in the kernel).
  */
-function ldltPanel(p: FrontalPass, s: number, panel: number, m: number, c: number): PivotFailure | null {
-  const S = p.kernels.view(), f0 = p.st.superStart[s];
+function ldltPanel(p: FrontalPass, S: Float64Array, s: number, panel: number, m: number, c: number): PivotFailure | null {
+  const f0 = p.st.superStart[s];
   let floor = Infinity;
   for (let j = 0; j < c; j++) if (p.tiny[f0 + j] < floor) floor = p.tiny[f0 + j];
   const f = p.kernels.ldlt(c, panel, m, c > 0 ? floor : 0);
@@ -136,9 +161,8 @@ function ldltPanel(p: FrontalPass, s: number, panel: number, m: number, c: numbe
  * relative indices (`rel`, Liu 1992 §5), split into runs of consecutive
  * parent rows so the inner loops are contiguous.
  */
-function extendAddChildren(p: FrontalPass, s: number, panel: number, m: number, c: number, cb: number): void {
+function extendAddChildren(p: FrontalPass, S: Float64Array, s: number, panel: number, m: number, c: number, cb: number): void {
   const { st, local, rel, runEnd, children } = p;
-  const S = p.kernels.view();
   const b = m - c;
   for (let k = p.childPtr[s]; k < p.childPtr[s + 1]; k++) {
     const ch = children[k];

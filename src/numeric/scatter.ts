@@ -2,9 +2,14 @@
  * Where each stored entry of A lands in the factor. Built once, on the first
  * factorization: entry (i, j) of the caller's matrix goes to (max, min) of
  * (inverse[i], inverse[j]) in the new numbering, i.e. to a row of the
- * supernode owning that column. A `refactor` then costs one pass over A's
- * values. Only the lower triangle of a full-storage matrix is placed; its
- * symmetry is checked by the matrix stage (NotSymmetricError names the entry).
+ * supernode owning that column. The entries are grouped by supernode, so the
+ * multifrontal pass zeroes and assembles each panel right before it factors
+ * it, while the panel is in cache (the assembly step of Duff & Reid 1983),
+ * instead of zeroing and scattering into the whole factor first. A
+ * `refactor` then costs one pass over A's values for the row statistics
+ * below and one, supernode by supernode, for the assembly. Only the lower
+ * triangle of a full-storage matrix is placed; its symmetry is checked by the
+ * matrix stage (NotSymmetricError names the entry).
  */
 import { InputError, PatternMismatchError } from "../errors.js";
 import type { SparseMatrix } from "../matrix/sparse.js";
@@ -17,8 +22,11 @@ export interface ScatterMap {
   /** Copies of A's pattern, to recognise the same pattern later. */
   readonly colPtr: Int32Array;
   readonly rowIdx: Int32Array;
-  /** Factor offset of each stored entry, −1 for the mirrored upper entries of a full-storage matrix. */
-  readonly target: Float64Array;
+  /** Stored entries placed in supernode s: entry[entryPtr[s] .. entryPtr[s+1]) (indices into A's values). */
+  readonly entryPtr: Int32Array;
+  readonly entry: Int32Array;
+  /** Offset of each of those entries within its supernode's panel (column-major, ld m). */
+  readonly offset: Int32Array;
 }
 
 /**
@@ -45,7 +53,9 @@ export function buildScatterMap(st: SupernodalStructure, inverse: Int32Array, A:
   for (let c = 0; c < n; c++) ptr[c + 1] += ptr[c];
   const bucket = new Int32Array(ptr[n]), next = ptr.slice(0, n);
   for (let p = 0; p < nnz; p++) if (newRow[p] >= 0) bucket[next[newCol[p]]++] = p;
-  const target = new Float64Array(nnz).fill(-1);
+  const entryPtr = new Int32Array(st.supernodeCount + 1);
+  for (let s = 0; s < st.supernodeCount; s++) entryPtr[s + 1] = ptr[st.superStart[s + 1]];
+  const offset = new Int32Array(ptr[n]);
   const local = new Int32Array(n), stamp = new Int32Array(n).fill(-1);
   for (let s = 0; s < st.supernodeCount; s++) {
     const r0 = st.rowPtr[s], m = st.rowPtr[s + 1] - r0, f = st.superStart[s];
@@ -57,11 +67,11 @@ export function buildScatterMap(st: SupernodalStructure, inverse: Int32Array, A:
           const j = entryColumn(colPtr, p);
           throw new PatternMismatchError(`entry (${rowIdx[p]}, ${j}) (0-based) is outside the pattern the analysis was made for`);
         }
-        target[p] = st.factorPtr[s] + (c - f) * m + local[r];
+        offset[q] = (c - f) * m + local[r];
       }
     }
   }
-  return { form, colPtr: colPtr.slice(), rowIdx: rowIdx.slice(), target };
+  return { form, colPtr: colPtr.slice(), rowIdx: rowIdx.slice(), entryPtr, entry: bucket, offset };
 }
 
 /** Column of stored entry p (binary search in colPtr). */
@@ -85,15 +95,37 @@ export function samePattern(map: ScatterMap, A: SparseMatrix): boolean {
   return true;
 }
 
-/** Add A's values into the (zeroed) factor region of the store. Non-finite values are an InputError naming the entry. */
-export function scatterValues(map: ScatterMap, A: SparseMatrix, S: Float64Array): void {
-  const { target } = map, v = A.values, nnz = target.length;
-  for (let p = 0; p < nnz; p++) {
-    const x = v[p];
-    if (!Number.isFinite(x)) {
-      throw new InputError(`entry (${A.rowIdx[p]}, ${entryColumn(map.colPtr, p)}) (0-based) has non-finite value ${x}`);
+/** Zero supernode s's panel (m·c doubles at `panel` in S) and add A's entries into it. */
+export function assemblePanel(map: ScatterMap, s: number, values: Float64Array, S: Float64Array, panel: number, size: number): void {
+  S.fill(0, panel, panel + size);
+  const { entry, offset } = map;
+  for (let q = map.entryPtr[s], e = map.entryPtr[s + 1]; q < e; q++) S[panel + offset[q]] += values[entry[q]];
+}
+
+/**
+ * One pass over A's stored values (in the map's pattern): throws InputError
+ * naming the first non-finite entry; fills rowMax[i] with the largest |a_ik|
+ * of row i of the symmetric matrix (each stored entry counts for its row and
+ * its column) and sums[i] with Σ_k |a_ik| (a mirrored entry of a triangular
+ * form counts twice, as in symmetricNormInf); returns ‖A‖∞ = max_i sums[i].
+ * Both arrays are in A's numbering and overwritten.
+ */
+export function rowStatistics(map: ScatterMap, values: Float64Array, rowMax: Float64Array, sums: Float64Array): number {
+  const { colPtr, rowIdx } = map, n = colPtr.length - 1, mirrored = map.form !== "full";
+  rowMax.fill(0);
+  sums.fill(0);
+  for (let j = 0; j < n; j++) {
+    for (let p = colPtr[j]; p < colPtr[j + 1]; p++) {
+      const x = values[p];
+      if (!Number.isFinite(x)) throw new InputError(`entry (${rowIdx[p]}, ${j}) (0-based) has non-finite value ${x}`);
+      const i = rowIdx[p], a = Math.abs(x);
+      if (a > rowMax[i]) rowMax[i] = a;
+      if (a > rowMax[j]) rowMax[j] = a;
+      sums[i] += a;
+      if (mirrored && i !== j) sums[j] += a;
     }
-    const t = target[p];
-    if (t >= 0) S[t] += x;
   }
+  let norm = 0;
+  for (let i = 0; i < n; i++) if (sums[i] > norm) norm = sums[i];
+  return norm;
 }
