@@ -179,12 +179,20 @@ function moveInto(g: WGraph, st: SeparatorState, v: number, t: number, w: FmWork
     label[u] = 2;
     st.weight[other] -= vertexWeight[u];
     st.weight[2] += vertexWeight[u];
+    // one scan of u's list: its separator neighbours now cost u's weight less to move
+    // into t, and its own gains count its neighbours in each part (what pushBoth counts)
+    let in0 = 0;
+    let in1 = 0;
     for (let q = offsets[u], qe = offsets[u + 1]; q < qe; q++) {
       const x = neighbours[q];
-      if (label[x] === 2 && heaps[t].has(x)) heaps[t].update(x, heaps[t].key[x] + vertexWeight[u]);
+      const l = label[x];
+      if (l === 2) {
+        if (heaps[t].has(x)) heaps[t].update(x, heaps[t].key[x] + vertexWeight[u]);
+      } else if (l === 0) in0 += vertexWeight[x]; else in1 += vertexWeight[x];
     }
     if (!moved[u]) {
-      pushBoth(g, label, u, heaps);
+      heaps[0].push(u, vertexWeight[u] - in1);
+      heaps[1].push(u, vertexWeight[u] - in0);
     }
   }
   return length;
