@@ -87,14 +87,17 @@ export function projectBisection(fine: WGraph, coarseOf: Int32Array, degree: Int
     const c = boundary[i];
     mark[c] = 1; boundaryPos[c] = -1; moves[i] = c; // moves: free between FM passes, keeps the list to clear the marks
   }
+  // every vertex first as interior (id its weighted degree, ed 0), in bulk: the
+  // candidates' degrees are then overwritten by their scans, and the loop below
+  // touches four arrays instead of seven
+  ed.fill(0, 0, fine.n);
+  if (degree !== null) id.set(degree.subarray(0, fine.n)); else weightedDegrees(fine, id);
   const label = new Int8Array(fine.n);
   let candidates = 0; // fine vertices under the coarse boundary, listed in `boundary` (free now)
   for (let v = 0; v < fine.n; v++) {
     const c = coarseOf[v];
     label[v] = coarseLabel[c];
-    if (mark[c] !== 0) { boundary[candidates++] = v; continue; }
-    id[v] = degree !== null ? degree[v] : fine.unitEdges ? fine.offsets[v + 1] - fine.offsets[v] : weightedDegree(fine, v);
-    ed[v] = 0;
+    if (mark[c] !== 0) boundary[candidates++] = v;
   }
   for (let i = 0; i < coarseCount; i++) mark[moves[i]] = 0;
   w.boundaryCount = 0;
@@ -116,10 +119,18 @@ function scanVertex(g: WGraph, label: Int8Array, v: number, w: FmWork): void {
   if (outside > 0) addBoundary(w, v);
 }
 
-function weightedDegree(g: WGraph, v: number): number {
-  let d = 0;
-  for (let p = g.offsets[v], pe = g.offsets[v + 1]; p < pe; p++) d += g.edgeWeight[p];
-  return d;
+/** Writes each vertex's weighted degree (its list's length for unit edges) to out. */
+function weightedDegrees(g: WGraph, out: Int32Array): void {
+  const { offsets, edgeWeight } = g;
+  if (g.unitEdges) {
+    for (let v = 0; v < g.n; v++) out[v] = offsets[v + 1] - offsets[v];
+    return;
+  }
+  for (let v = 0; v < g.n; v++) {
+    let d = 0;
+    for (let p = offsets[v], pe = offsets[v + 1]; p < pe; p++) d += edgeWeight[p];
+    out[v] = d;
+  }
 }
 
 function addBoundary(w: FmWork, v: number): void {

@@ -158,27 +158,29 @@ function pickTarget(g: WGraph, st: SeparatorState, maxPart: number, heaps: FmWor
  */
 function moveInto(g: WGraph, st: SeparatorState, v: number, t: number, w: FmWork, length: number): number {
   const { offsets, neighbours, vertexWeight } = g;
-  const { heaps, moved, log } = w;
+  const { moved, log } = w;
   const label = st.label;
   const other = 1 - t;
-  heaps[0].remove(v);
-  heaps[1].remove(v);
+  const into = w.heaps[t]; // the queue of moves into t
+  const away = w.heaps[other]; // and into the other part
+  into.remove(v);
+  away.remove(v);
   moved[v] = 1;
   log[length++] = v; log[length++] = 2;
   label[v] = t;
-  st.weight[2] -= vertexWeight[v];
-  st.weight[t] += vertexWeight[v];
+  const wv = vertexWeight[v];
+  let pulled = 0; // weight pulled from the other part into the separator
   for (let p = offsets[v], pe = offsets[v + 1]; p < pe; p++) {
     const u = neighbours[p];
     if (label[u] === 2) {
-      if (heaps[other].has(u)) heaps[other].update(u, heaps[other].key[u] - vertexWeight[v]);
+      if (away.has(u)) away.update(u, away.key[u] - wv);
       continue;
     }
     if (label[u] !== other) continue;
     log[length++] = u; log[length++] = other;
     label[u] = 2;
-    st.weight[other] -= vertexWeight[u];
-    st.weight[2] += vertexWeight[u];
+    const wu = vertexWeight[u];
+    pulled += wu;
     // one scan of u's list: its separator neighbours now cost u's weight less to move
     // into t, and its own gains count its neighbours in each part (what pushBoth counts)
     let in0 = 0;
@@ -187,13 +189,16 @@ function moveInto(g: WGraph, st: SeparatorState, v: number, t: number, w: FmWork
       const x = neighbours[q];
       const l = label[x];
       if (l === 2) {
-        if (heaps[t].has(x)) heaps[t].update(x, heaps[t].key[x] + vertexWeight[u]);
+        if (into.has(x)) into.update(x, into.key[x] + wu);
       } else if (l === 0) in0 += vertexWeight[x]; else in1 += vertexWeight[x];
     }
     if (!moved[u]) {
-      heaps[0].push(u, vertexWeight[u] - in1);
-      heaps[1].push(u, vertexWeight[u] - in0);
+      w.heaps[0].push(u, wu - in1);
+      w.heaps[1].push(u, wu - in0);
     }
   }
+  st.weight[2] += pulled - wv;
+  st.weight[t] += wv;
+  st.weight[other] -= pulled;
   return length;
 }
