@@ -127,15 +127,16 @@ describe("nested dissection: separators", () => {
   // needs one vertex per row it crosses, about √(2/3)·k ≈ 0.82k (geometry, closed form):
   // lighter than the middle line of k vertices and within the allowed imbalance. The second
   // start, grown to 35 % of the weight, finds such cuts; the first alone mostly slides to the
-  // middle (3 of these 8 seeds lighter than k without it, measured 2026-12-02).
-  it("often cuts a corner off a grid, more lightly than the middle line (seeds 1–8)", () => {
+  // middle (3 of 8 seeds lighter than k without it, measured with the earlier shared stream). With the random
+  // stream drawn per piece, 11 of these 16 seeds (17 of seeds 1–24) cut lighter than k.
+  it("often cuts a corner off a grid, more lightly than the middle line (seeds 1–16)", () => {
     const k = 100, g = gridGraph(k);
-    const sizes = [1, 2, 3, 4, 5, 6, 7, 8].map((seed) => {
-      const t = nd(g, seed).separatorTree!;
+    const sizes = Array.from({ length: 16 }, (_, i) => {
+      const t = nd(g, i + 1).separatorTree!;
       return t.end[t.count - 1] - t.separatorFirst[t.count - 1];
     });
     for (const size of sizes) expect(size).toBeLessThanOrEqual(k);
-    expect(sizes.filter((size) => size < k).length).toBeGreaterThanOrEqual(6);
+    expect(sizes.filter((size) => size < k).length).toBeGreaterThanOrEqual(8);
     expect(Math.min(...sizes)).toBeGreaterThanOrEqual(Math.floor(0.6 * k)); // no cut is much below the corner bound
   });
 

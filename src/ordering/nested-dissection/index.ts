@@ -71,7 +71,7 @@ interface State {
   parent: number[];
   stack: Pending[];
   placed: number;
-  rng: Rng;
+  seed: number;
   o: DissectionOptions;
   leafSize: number;
   bisect: BisectOptions;
@@ -113,7 +113,7 @@ export function nestedDissection(graph: Graph, o: DissectionOptions): OrderingRe
   const n = graph.n;
   const s: State = {
     perm: new Int32Array(n), first: [], sepFirst: [], end: [], parent: [], stack: [], placed: 0,
-    rng: new Rng(o.seed ?? 1), o, leafSize: o.leafSize ?? defaultLeafSize(n), bisect: { ...defaultBisectOptions, ...o.bisect }, work: fmWork(n, graph.neighbours.length),
+    seed: o.seed ?? 1, o, leafSize: o.leafSize ?? defaultLeafSize(n), bisect: { ...defaultBisectOptions, ...o.bisect }, work: fmWork(n, graph.neighbours.length),
     localOf: new Int32Array(n).fill(-1), hairRoot: null, coreAt: new Int32Array(0),
     top: graph, wholeWeight: 0, haloCount: new Int32Array(n), ones: new Int32Array(0),
   };
@@ -233,11 +233,30 @@ function attachedVertices(s: State, piece: Piece): Uint8Array {
  */
 function cutPiece(s: State, piece: Piece): Int8Array | null {
   const { graph: g, ids } = piece;
+  const rng = pieceRng(s.seed, piece.lo, g.n);
   const core = s.hairRoot === null ? null : coreVertices(s.hairRoot, ids);
-  if (core === null || core.length === g.n) return findSeparator(s, piece);
+  if (core === null || core.length === g.n) return findSeparator(s, piece, rng);
   if (core.length <= s.leafSize) return null;
   const graph = coreGraph(s, piece, core);
-  return spreadToHairs(s, ids, findSeparator(s, { ...piece, graph, ids: gather(ids, core) }), graph.vertexWeight);
+  return spreadToHairs(s, ids, findSeparator(s, { ...piece, graph, ids: gather(ids, core) }, rng), graph.vertexWeight);
+}
+
+/** The 32-bit finalizer of MurmurHash3 (Appleby 2008): every input bit reaches every output bit. */
+function mix32(x: number): number {
+  x ^= x >>> 16;
+  x = Math.imul(x, 0x85ebca6b);
+  x ^= x >>> 13;
+  x = Math.imul(x, 0xc2b2ae35);
+  return x ^ (x >>> 16);
+}
+
+/**
+ * The random stream of the piece at positions lo .. lo + n: drawn from the seed
+ * and the piece's place alone, so a piece is cut the same way whatever order
+ * the pieces are processed in, or on whichever thread.
+ */
+export function pieceRng(seed: number, lo: number, n: number): Rng {
+  return new Rng(mix32(mix32(mix32(seed | 0) ^ lo) ^ n));
 }
 
 /** The piece's vertices (local ids, ascending) that are not input hairs. */
@@ -284,15 +303,15 @@ function spreadToHairs(s: State, ids: Int32Array, coreLabel: Int8Array, weight: 
  * a multilevel one and keeps the lighter of it and the multilevel separator
  * (offering the plain cut as a third candidate was measured worse on 2-D grids).
  */
-function findSeparator(s: State, piece: Piece): Int8Array {
+function findSeparator(s: State, piece: Piece, rng: Rng): Int8Array {
   const { graph: g, ids } = piece;
   const c = s.o.coordinates;
   const mode = s.o.coordinateMode ?? "refine";
-  if (c === undefined || mode === "ignore") return multilevelSeparator(g, s.rng, s.bisect, s.work, s.wholeWeight);
+  if (c === undefined || mode === "ignore") return multilevelSeparator(g, rng, s.bisect, s.work, s.wholeWeight);
   const cut = coordinateCut(g, ids, c);
   if (mode === "plain") return separate(g, cut, { ...s.bisect, separatorRefinement: "none" }, s.work);
   const refined = separate(g, refineGiven(g, cut, s.bisect, s.work), s.bisect, s.work);
-  return lighter(g, refined, multilevelSeparator(g, s.rng, s.bisect, s.work, s.wholeWeight));
+  return lighter(g, refined, multilevelSeparator(g, rng, s.bisect, s.work, s.wholeWeight));
 }
 
 /**
@@ -399,19 +418,26 @@ function leafWithHalo(s: State, ids: Int32Array): { graph: Graph; halo: number }
   return { graph: { n: n + halo, offsets: off, neighbours: adj }, halo };
 }
 
-/** Nodes were created parents first; reversing lists children before parents. */
+/**
+ * Nodes in order of their range's end: a node's descendants end inside its
+ * range before its non-empty separator, so children come before parents, and
+ * the order does not depend on the order the pieces were processed in.
+ */
 function buildTree(s: State): SeparatorTree {
   const count = s.first.length;
+  const order = Array.from({ length: count }, (_, i) => i).sort((a, b) => s.end[a] - s.end[b]);
+  const at = new Int32Array(count);
+  for (let j = 0; j < count; j++) at[order[j]] = j;
   const first = new Int32Array(count);
   const separatorFirst = new Int32Array(count);
   const end = new Int32Array(count);
   const parent = new Int32Array(count);
-  for (let i = 0; i < count; i++) {
-    const j = count - 1 - i;
+  for (let j = 0; j < count; j++) {
+    const i = order[j];
     first[j] = s.first[i];
     separatorFirst[j] = s.sepFirst[i];
     end[j] = s.end[i];
-    parent[j] = s.parent[i] < 0 ? -1 : count - 1 - s.parent[i];
+    parent[j] = s.parent[i] < 0 ? -1 : at[s.parent[i]];
   }
   return { count, first, separatorFirst, end, parent };
 }
