@@ -13,12 +13,17 @@
 //   npm run build && node bench/ordering.mjs            # every problem
 //   RUNS=3 node bench/ordering.mjs grid2-300 grid3-40   # a selection
 //   ONLY=minimum-degree,nested-dissection RUNS=3 node bench/ordering.mjs grid2-1000   # some orderings only
+//   THREADS=1 ...                                        # nested dissection on the calling thread only
+// "threads" is the number of threads nested dissection ran on (by default up to
+// 4, no more than the cores, for graphs of 100,000 vertices or more); wall
+// seconds then fall below CPU seconds, which count every thread.
 import { SparseMatrix, adjacencyGraph, analyze, computeOrdering } from "../dist/index.js";
 import { measure, sweepSeconds } from "./common.mjs";
 
 const RUNS = Number(process.env.RUNS ?? 1);
 const SEED = Number(process.env.SEED ?? 1);
 const ONLY = process.env.ONLY ? new Set(process.env.ONLY.split(",")) : null;
+const THREADS = process.env.THREADS ? { threads: Number(process.env.THREADS) } : {};
 
 /** Lower-triangle matrix with a dominant diagonal from an edge callback (pattern is all that matters here). */
 function fromEdges(n, add) {
@@ -159,11 +164,11 @@ const rows = [];
 for (const name of selected) {
   const { A, xy } = problems[name]();
   const graph = adjacencyGraph(A);
-  const runs = [["minimum-degree", { ordering: "minimum-degree" }], ["nested-dissection", { ordering: "nested-dissection", seed: SEED }]];
+  const runs = [["minimum-degree", { ordering: "minimum-degree" }], ["nested-dissection", { ordering: "nested-dissection", seed: SEED, ...THREADS }]];
   if (A.ncols <= BANDED_LIMIT) runs.unshift(["natural", { ordering: "natural" }], ["reverse-cuthill-mckee", { ordering: "reverse-cuthill-mckee" }]);
   if (xy && !name.startsWith("grid2-1000")) {
-    runs.push(["nd+coordinates", { ordering: "nested-dissection", seed: SEED, coordinates: xy }]);
-    runs.push(["nd+coordinates(plain)", { ordering: "nested-dissection", seed: SEED, coordinates: xy, coordinateMode: "plain" }]);
+    runs.push(["nd+coordinates", { ordering: "nested-dissection", seed: SEED, coordinates: xy, ...THREADS }]);
+    runs.push(["nd+coordinates(plain)", { ordering: "nested-dissection", seed: SEED, coordinates: xy, coordinateMode: "plain", ...THREADS }]);
   }
   let mdFlops = NaN;
   const sweep = sweepSeconds(graph);
@@ -175,6 +180,7 @@ for (const name of selected) {
     const row = {
       problem: name, n: A.ncols, ordering: label, nnzL: stats.nnzL.toExponential(3), flops: stats.flops.toExponential(3),
       "vs MD flops": Number.isNaN(mdFlops) ? "-" : (stats.flops / mdFlops).toFixed(3), "wall s": m.wall.toFixed(2), "cpu s": m.cpu.toFixed(2), sweeps: (m.cpu / sweep).toFixed(0),
+      threads: m.result.threads ?? 1,
     };
     rows.push(row);
     console.log(Object.values(row).join("\t"));

@@ -11,8 +11,8 @@ import { checkGraph } from "../graph/check.js";
 import type { Graph } from "../graph/types.js";
 import { validateCoordinates, type Coordinates } from "./coordinates.js";
 import { minimumDegree } from "./minimum-degree.js";
-import { leafMinimumDegree, leafWork } from "./leaf-degree.js";
 import { nestedDissection } from "./nested-dissection/index.js";
+import { availableCores } from "./nested-dissection/threads.js";
 import { reverseCuthillMcKee } from "./rcm.js";
 import type { OrderingResult, SeparatorTree } from "./types.js";
 
@@ -43,6 +43,15 @@ export interface OrderingOptions {
   signal?: AbortSignal;
   /** Called with the fraction (0..1) of vertices placed so far. */
   onProgress?: (fraction: number) => void;
+  /**
+   * Threads nested dissection may use, this one included. Default: up to 4 (no
+   * more than the cores) for graphs of 100,000 vertices or more (after
+   * compression), else 1. Helper threads run in Node only (worker_threads,
+   * with the caller blocked until they finish); elsewhere, or when they cannot
+   * start, all runs on the calling thread. The ordering is the same for any
+   * number of threads.
+   */
+  threads?: number;
 }
 
 /** Below this order the default is minimum degree, above it nested dissection. */
@@ -90,20 +99,32 @@ function dissect(g: Graph, options: OrderingOptions): OrderingResult {
   if (mode !== undefined && mode !== "refine" && mode !== "plain" && mode !== "ignore") {
     throw new InputError(`coordinateMode must be "refine", "plain" or "ignore", got ${String(mode)}`);
   }
-  // small leaves: exact minimum degree on bitsets; larger ones: approximate minimum degree,
-  // setting dense rows aside as it does by default (keeps star-like leaves linear);
-  // both count the leaf's halo (its neighbours in the separators above it) in the degrees
-  const work = leafWork();
-  const orderLeaf = (leaf: Graph, halo: number): Int32Array => leafMinimumDegree(leaf, work, halo);
-  const common = {
-    orderLeaf, seed: options.seed, signal: options.signal, onProgress: options.onProgress, coordinateMode: options.coordinateMode,
-  };
   const c = g.n > DISSECTION_THRESHOLD ? compressIfSmaller(g, COMPRESSION_RATIO) : null;
+  // leaves: halo minimum degree (the default leaf ordering of nestedDissection)
+  const common = {
+    seed: options.seed, signal: options.signal, onProgress: options.onProgress, coordinateMode: options.coordinateMode,
+    threads: threadsFor(c === null ? g.n : c.graph.n, options.threads),
+  };
   if (c === null) return nestedDissection(g, { ...common, coordinates });
   const r = nestedDissection(c.graph, {
     ...common, vertexWeights: c.weights, coordinates: coordinates && compressCoordinates(c, coordinates),
   });
-  return { permutation: expandPermutation(c, r.permutation), separatorTree: expandTree(c, r.permutation, r.separatorTree!) };
+  return { permutation: expandPermutation(c, r.permutation), separatorTree: expandTree(c, r.permutation, r.separatorTree), threads: r.threads };
+}
+
+/** Graphs (after compression) with at least this many vertices are dissected on several threads by default. */
+export const PARALLEL_THRESHOLD = 100_000;
+
+/** Most threads used by default. */
+const DEFAULT_THREADS = 4;
+
+/** Threads for dissecting an n-vertex graph: the caller's number (checked), or the default. */
+function threadsFor(n: number, requested: number | undefined): number {
+  if (requested !== undefined) {
+    if (!Number.isInteger(requested) || requested < 1) throw new InputError(`threads must be a positive integer, got ${String(requested)}`);
+    return requested;
+  }
+  return n >= PARALLEL_THRESHOLD ? Math.min(DEFAULT_THREADS, availableCores()) : 1;
 }
 
 /** Each supervariable takes the coordinates of its first member. */

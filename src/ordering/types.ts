@@ -21,4 +21,6 @@ export interface OrderingResult {
   readonly separatorTree?: SeparatorTree;
   /** Name of the ordering that ran (useful when a default was chosen). */
   readonly name?: string;
+  /** Threads that nested dissection ran on (1 when helpers were not used or could not start). */
+  readonly threads?: number;
 }

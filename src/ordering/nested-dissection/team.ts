@@ -1,0 +1,303 @@
+/**
+ * Sharing the pieces of one dissection among threads (subtree-to-thread
+ * mapping, Pothen & Sun 1993, SIAM J. Sci. Comput. 14(5)): this thread cuts
+ * the heaviest pieces until the open ones fall into groups of about equal
+ * weight (largest first into the lightest group: Graham 1969, "Bounds on
+ * multiprocessing timing anomalies", SIAM J. Appl. Math. 17(2)), keeps the
+ * lightest group and hands each other group to a helper. A piece's cut depends
+ * only on the seed and its place, so the helpers' results are the ones this
+ * thread would have found; a helper that fails has its pieces redone here.
+ */
+import { AbortedError } from "../../errors.js";
+import type { Graph } from "../../graph/types.js";
+import { addNode, drain, newState, processPiece, type Pending, type Settings, type State } from "./pieces.js";
+import { fmWork } from "./refine.js";
+import {
+  askForPiece, awaitEvent, defaultHelperScript, helperPlaced, releaseHelper, sendJob, signal, Slot, takeHelper, takeMessage, type Helper,
+} from "./threads.js";
+import type { WGraph } from "./wgraph.js";
+
+/** A helper, the pieces handed to it and whether its result is still awaited. */
+export interface Member {
+  helper: Helper;
+  pieces: Pending[];
+  working: boolean;
+}
+
+/** What a helper is started with: the input graph, its hairs and the settings. */
+export interface HelperInit {
+  offsets: Int32Array;
+  neighbours: Int32Array;
+  hairRoot: Int32Array | null;
+  settings: Settings;
+}
+
+/** A piece as sent to a helper; parent ≤ -2 names node -2 − parent of the sending thread. */
+export interface PieceMessage {
+  n: number;
+  offsets: Int32Array;
+  neighbours: Int32Array;
+  /** Null for unit edge weights. */
+  edgeWeight: Int32Array | null;
+  vertexWeight: Int32Array;
+  totalWeight: number;
+  maxVertexWeight: number;
+  ids: Int32Array;
+  lo: number;
+  parent: number;
+  leaf: boolean;
+}
+
+/** A helper's result: the positions of its pieces in perm, its nodes (parents encoded as in PieceMessage). */
+export interface HelperResult {
+  perm: Int32Array;
+  first: Int32Array;
+  sepFirst: Int32Array;
+  end: Int32Array;
+  parent: Int32Array;
+  placed: number;
+  /** Set instead of the rest when the helper failed. */
+  error?: string;
+}
+
+/** Takes `count` helpers (fewer, or none, where threads or the helper script are not available). */
+export function startTeam(count: number, script: URL | undefined): Member[] {
+  if (count < 1) return [];
+  const url = script ?? defaultHelperScript();
+  if (url === null) return [];
+  const team: Member[] = [];
+  for (let i = 0; i < count; i++) {
+    const helper = takeHelper(url);
+    if (helper === null) break;
+    team.push({ helper, pieces: [], working: false });
+  }
+  return team;
+}
+
+/** Gives the helpers back: idle ones to the pool, those still working (after an error or an abort) are stopped. */
+export function stopTeam(team: Member[]): void {
+  for (const m of team) releaseHelper(m.helper, m.working);
+}
+
+/** Vertices placed so far by the helpers whose results are not merged yet. */
+export function teamPlaced(team: Member[]): number {
+  let placed = 0;
+  for (const m of team) if (m.working) placed += helperPlaced(m.helper);
+  return placed;
+}
+
+/** A group is balanced when it is at most this much heavier than an equal share. */
+const BALANCE = 1.1;
+
+/**
+ * Cuts the heaviest open pieces here until the open pieces form team.length + 1
+ * balanced groups (at most 4 cuts per thread), keeps the lightest group on the
+ * stack and sends each other group to a helper. Returns the members that got
+ * pieces (the others go back to the pool).
+ */
+export function shareOut(s: State, team: Member[], tick: () => void): Member[] {
+  const parts = team.length + 1;
+  let groups = group(openPieces(s), parts);
+  for (let cuts = 0; cuts < 4 * parts && !groups.balanced; cuts++) {
+    const open = openPieces(s);
+    if (open.length === 0) break;
+    tick();
+    s.stack.splice(s.stack.indexOf(open[0]), 1);
+    processPiece(s, open[0]);
+    groups = group(openPieces(s), parts);
+  }
+  const init: HelperInit = { offsets: s.top.offsets, neighbours: s.top.neighbours, hairRoot: s.hairRoot, settings: s.set };
+  const busy: Member[] = [];
+  for (let i = 1; i < parts; i++) {
+    const m = team[i - 1];
+    if (groups.bins[i].length === 0) { releaseHelper(m.helper, false); continue; }
+    m.pieces = groups.bins[i];
+    for (const p of m.pieces) s.stack.splice(s.stack.indexOf(p), 1);
+    sendJob(m.helper, { init, pieces: m.pieces.map((p) => toMessage(p, p.parent < 0 ? -1 : -2 - p.parent)) });
+    m.working = true;
+    busy.push(m);
+  }
+  return busy;
+}
+
+/** Pieces on the stack that will be cut (not leaves), heaviest first. */
+function openPieces(s: State): Pending[] {
+  return s.stack.filter((p) => p.graph !== null && !p.leaf && p.ids.length > s.set.leafSize).sort((a, b) => cost(b) - cost(a));
+}
+
+/** Work of a piece, in proportion: its vertices and adjacency entries. */
+function cost(p: Pending): number {
+  return p.graph === null ? p.ids.length : p.graph.n + p.graph.neighbours.length;
+}
+
+/** Largest-first assignment of the pieces (heaviest first) to `parts` groups; groups in order of weight, lightest first. */
+function group(open: Pending[], parts: number): { bins: Pending[][]; balanced: boolean } {
+  const bins: { load: number; pieces: Pending[] }[] = Array.from({ length: parts }, () => ({ load: 0, pieces: [] }));
+  let total = 0;
+  for (const p of open) {
+    let lightest = bins[0];
+    for (const b of bins) if (b.load < lightest.load) lightest = b;
+    lightest.pieces.push(p);
+    lightest.load += cost(p);
+    total += cost(p);
+  }
+  bins.sort((a, b) => a.load - b.load);
+  const balanced = open.length >= parts && bins[parts - 1].load <= (BALANCE * total) / parts;
+  return { bins: bins.map((b) => b.pieces), balanced };
+}
+
+/** An array that owns its buffer: a view is copied (a message would copy the whole buffer behind it). */
+function own(a: Int32Array): Int32Array {
+  return a.byteOffset === 0 && a.byteLength === a.buffer.byteLength ? a : a.slice();
+}
+
+/**
+ * A piece as a message. `parent` as the receiver reads it: from the calling
+ * thread, its node j is sent as -2 - j; from a helper, parents go as they are
+ * (its own nodes ≥ 0, the caller's already written -2 - j).
+ */
+function toMessage(p: Pending, parent: number): PieceMessage {
+  const g = p.graph!;
+  return {
+    n: g.n, offsets: own(g.offsets), neighbours: own(g.neighbours), edgeWeight: g.unitEdges ? null : own(g.edgeWeight),
+    vertexWeight: own(g.vertexWeight), totalWeight: g.totalWeight, maxVertexWeight: g.maxVertexWeight,
+    ids: own(p.ids), lo: p.lo, parent, leaf: p.leaf,
+  };
+}
+
+/**
+ * Waits for each helper and merges its result; while waiting, this thread
+ * asks the helper for pieces and cuts them itself (the helper gives away its
+ * heaviest open piece between two of its own), so neither thread idles while
+ * the other has work. A helper that fails (or does not start) has its pieces
+ * cut here, and what this thread did for it is dropped. Returns the number of
+ * threads that did work, this one included.
+ */
+export function joinTeam(s: State, team: Member[], tick: () => void): number {
+  let threads = 1;
+  for (const m of team) {
+    const mark = { nodes: s.first.length, placed: s.placed };
+    const r = helpWhileWaiting(s, m, tick);
+    m.working = false;
+    if (r === null) {
+      truncateNodes(s, mark.nodes);
+      s.placed = mark.placed;
+      s.stack.push(...m.pieces);
+      drain(s, tick);
+      continue;
+    }
+    merge(s, m.pieces, r.result, r.taken, mark.nodes);
+    threads++;
+  }
+  return threads;
+}
+
+/** Positions this thread filled for a helper: ranges of the pieces it took over. */
+type Taken = { lo: number; values: Int32Array }[];
+
+/** Cuts pieces taken from the helper until it has none to give, then waits for its result (null: it failed). */
+function helpWhileWaiting(s: State, m: Member, tick: () => void): { result: HelperResult; taken: Taken } | null {
+  const taken: Taken = [];
+  askForPiece(m.helper);
+  for (;;) {
+    const event = awaitEvent(m.helper, tick);
+    if (event === "none") continue;
+    if (event === "failed") return null;
+    if (event === "done") {
+      const result = takeMessage<HelperResult>(m.helper);
+      return result === null || result.error !== undefined ? null : { result, taken };
+    }
+    const message = takeMessage<{ piece: PieceMessage }>(m.helper);
+    if (message === null) return null;
+    const p = message.piece;
+    // a parent among the helper's nodes (p.parent ≥ 0) is written -2 - index here and linked when
+    // the helper's nodes are merged; a parent here (p.parent ≤ -2) is node -2 - p.parent
+    const parent = p.parent === -1 ? -1 : -2 - p.parent;
+    s.stack.push({ graph: fromMessage(p, s.ones), ids: p.ids, lo: p.lo, parent, leaf: p.leaf });
+    drain(s, tick);
+    taken.push({ lo: p.lo, values: s.perm.slice(p.lo, p.lo + p.ids.length) });
+    askForPiece(m.helper);
+  }
+}
+
+function truncateNodes(s: State, count: number): void {
+  s.first.length = count; s.sepFirst.length = count; s.end.length = count; s.parent.length = count;
+}
+
+/**
+ * Copies the helper's positions for its pieces (those this thread took over
+ * keep what it wrote) and appends its nodes; nodes made here since `from`
+ * whose parent is a helper node (-2 - index) are linked to it.
+ */
+function merge(s: State, pieces: Pending[], r: HelperResult, taken: Taken, from: number): void {
+  for (const p of pieces) s.perm.set(r.perm.subarray(p.lo, p.lo + p.ids.length), p.lo);
+  for (const t of taken) s.perm.set(t.values, t.lo);
+  const offset = s.first.length;
+  for (let i = from; i < offset; i++) if (s.parent[i] <= -2) s.parent[i] = offset + (-2 - s.parent[i]);
+  for (let i = 0; i < r.first.length; i++) {
+    const q = r.parent[i];
+    addNode(s, r.first[i], r.sepFirst[i], r.end[i], q >= 0 ? q + offset : q === -1 ? -1 : -2 - q);
+  }
+  s.placed += r.placed;
+}
+
+/**
+ * The helper's side: dissects the pieces it was sent, with workspaces sized
+ * for the largest, and reports progress and signs of life through `control`.
+ */
+export function dissectPieces(
+  init: HelperInit, pieces: PieceMessage[], control: Int32Array, orderLeaf: (g: Graph, halo: number) => Int32Array, give: (message: { piece: PieceMessage }) => void,
+): HelperResult {
+  const top: Graph = { n: init.offsets.length - 1, offsets: init.offsets, neighbours: init.neighbours };
+  let most = 1;
+  let edges = 1;
+  for (const p of pieces) { most = Math.max(most, p.n); edges = Math.max(edges, p.neighbours.length); }
+  const ones = new Int32Array(edges).fill(1);
+  const s = newState(top, init.settings, orderLeaf, fmWork(most, edges), ones, init.hairRoot);
+  for (const p of pieces) s.stack.push({ graph: fromMessage(p, ones), ids: p.ids, lo: p.lo, parent: p.parent, leaf: p.leaf });
+  drain(s, () => {
+    if (Atomics.load(control, Slot.Abort) === 1) throw new AbortedError("nested dissection helper stopped");
+    Atomics.store(control, Slot.Placed, s.placed);
+    Atomics.add(control, Slot.Beat, 1);
+    if (Atomics.load(control, Slot.Want) === 1 && Atomics.load(control, Slot.Given) === 0) offer(s, control, give);
+  });
+  return {
+    perm: s.perm, first: Int32Array.from(s.first), sepFirst: Int32Array.from(s.sepFirst), end: Int32Array.from(s.end),
+    parent: Int32Array.from(s.parent), placed: s.placed,
+  };
+}
+
+/** Pieces smaller than this many leaves are not worth handing over. */
+const SMALLEST_GIFT = 4;
+
+/**
+ * Answers the caller's request: gives away the heaviest open piece that holds
+ * at most half of the open work (so that neither thread ends up waiting long
+ * for the other), says there is none when no open piece is worth handing
+ * over, or leaves the request for a later piece when one piece holds more
+ * than half (it is cut next, and one of its parts goes).
+ */
+function offer(s: State, control: Int32Array, give: (message: { piece: PieceMessage }) => void): void {
+  const open = openPieces(s);
+  const smallest = SMALLEST_GIFT * s.set.leafSize;
+  let p: Pending | null = null;
+  if (open.length > 0 && open[0].ids.length >= smallest) {
+    let total = 0;
+    for (const q of open) total += cost(q);
+    const fits = open.find((q) => 2 * cost(q) <= total);
+    if (fits === undefined || fits.ids.length < smallest) return;
+    p = fits;
+    s.stack.splice(s.stack.indexOf(p), 1);
+    give({ piece: toMessage(p, p.parent) });
+  }
+  Atomics.store(control, Slot.Want, 0);
+  Atomics.store(control, Slot.Given, p === null ? 2 : 1);
+  signal(control);
+}
+
+function fromMessage(p: PieceMessage, ones: Int32Array): WGraph {
+  return {
+    n: p.n, offsets: p.offsets, neighbours: p.neighbours, edgeWeight: p.edgeWeight ?? ones.subarray(0, p.neighbours.length),
+    vertexWeight: p.vertexWeight, totalWeight: p.totalWeight, maxVertexWeight: p.maxVertexWeight, unitEdges: p.edgeWeight === null,
+  };
+}
