@@ -14,6 +14,8 @@ import { build } from "tsup";
 import { beforeAll, describe, expect, it } from "vitest";
 import { AbortedError, InputError } from "../src/errors.js";
 import { elasticity3d } from "../src/generate/elasticity.js";
+import { grid2d } from "../src/generate/grids.js";
+import { analyze } from "../src/solver/analyze.js";
 import { adjacencyGraph } from "../src/graph/adjacency.js";
 import { compressIfSmaller } from "../src/graph/compress.js";
 import type { Graph } from "../src/graph/types.js";
@@ -128,6 +130,12 @@ describe("threads option of computeOrdering", () => {
       expect(() => computeOrdering(g, { ordering: "nested-dissection", threads })).toThrow(InputError);
     }
     expect(() => computeOrdering(g, { ordering: "nested-dissection", threads: 1.5 })).toThrow(/threads must be a positive integer, got 1\.5/);
+  });
+
+  it("is passed on by analyze, which rejects a bad count the same way", () => {
+    const A = grid2d(30).matrix;
+    expect(() => analyze(A, { ordering: "nested-dissection", threads: 0 })).toThrow(/threads must be a positive integer, got 0/);
+    expect(analyze(A, { ordering: "nested-dissection", threads: 2 }).permutation).toEqual(analyze(A, { ordering: "nested-dissection", threads: 1 }).permutation);
   });
 
   it("runs on this thread where no helper script is found (the sources, not the bundle), with the same ordering", () => {

@@ -45,6 +45,12 @@ export interface AnalyzeOptions {
    * "ignore" disregards them.
    */
   coordinateMode?: "refine" | "plain" | "ignore";
+  /**
+   * Threads nested dissection may use, this one included. Default: up to 4 (no
+   * more than the cores) for graphs of 100,000 or more vertices, else 1; see
+   * {@link OrderingOptions.threads}. The ordering does not depend on it.
+   */
+  threads?: number;
   /** Bounds on relaxed supernode amalgamation, or false to keep fundamental supernodes. */
   amalgamation?: AmalgamationOptions | false;
   /** Called as work proceeds. */
@@ -64,7 +70,7 @@ export function analyze(A: SparseMatrix, options: AnalyzeOptions = {}): Analysis
   const graph = adjacencyGraph(A);
   const t0 = now();
   const common: OrderingOptions = {
-    seed: options.seed, coordinates: options.coordinates, coordinateMode: options.coordinateMode, signal,
+    seed: options.seed, coordinates: options.coordinates, coordinateMode: options.coordinateMode, threads: options.threads, signal,
   };
   const ordering = choice === undefined
     ? defaultOrdering(graph, common, onProgress)
