@@ -134,10 +134,11 @@ function separateState(g: WGraph, from: Int8Array | Bisection, o: BisectOptions,
  * weight of the whole graph being dissected, which decides whether g is large
  * enough for a second start.
  */
-export function multilevelSeparator(g: WGraph, rng: Rng, o: BisectOptions, work: FmWork, wholeWeight = g.totalWeight): Int8Array {
+export function multilevelSeparator(g: WGraph, rng: Rng, o: BisectOptions, work: FmWork, wholeWeight = g.totalWeight, elsewhere?: SecondStartElsewhere): Int8Array {
+  const second = hasSecondStart(g, o, wholeWeight);
+  const collect = second && elsewhere !== undefined ? elsewhere(g) : null;
   const levels = coarsen(g, rng, o.coarsestSize, work.arenas);
   const start = coarsestBisection(g, levels, rng, o, work, 0.5);
-  const second = o.secondStart > 0 && g.n >= o.secondStartAbove && g.totalWeight >= o.secondStartShare * wholeWeight;
   if (!second) return refineStart(g, levels, start, o, work);
   const other = coarsestBisection(g, levels, rng, o, work, o.secondStart);
   // about a third of the second starts end, after FM on the coarsest graph, as the very same
@@ -146,8 +147,35 @@ export function multilevelSeparator(g: WGraph, rng: Rng, o: BisectOptions, work:
   // each start is evaluated again just before its refinement: the cover step reads the work's boundary list
   const coarsest = coarsestOf(g, levels);
   const a = refineStart(g, levels, evaluate(coarsest, start.label, work), o, work);
+  const remote = collect === null ? undefined : collect();
   if (same) return a;
-  return lighter(g, a, refineStart(g, levels, evaluate(coarsest, other.label, work), o, work));
+  return lighter(g, a, remote ?? refineStart(g, levels, evaluate(coarsest, other.label, work), o, work));
+}
+
+/**
+ * Hands the refinement of g's second start to another thread, which repeats
+ * the coarsening and both coarsest bisections from the same random stream;
+ * returns a function that waits for the refined labels (null when that thread
+ * found the two starts the same, undefined when it failed: refined here then).
+ */
+export type SecondStartElsewhere = (g: WGraph) => () => Int8Array | null | undefined;
+
+/** Whether g is large enough (in itself and against the whole graph) for a second start. */
+export function hasSecondStart(g: WGraph, o: BisectOptions, wholeWeight: number): boolean {
+  return o.secondStart > 0 && g.n >= o.secondStartAbove && g.totalWeight >= o.secondStartShare * wholeWeight;
+}
+
+/**
+ * The other thread's part of {@link SecondStartElsewhere}: g's second start
+ * refined, as multilevelSeparator refines it with the same `rng` (fresh for
+ * the piece); null when it is the same as the first start.
+ */
+export function secondStartOnly(g: WGraph, rng: Rng, o: BisectOptions, work: FmWork): Int8Array | null {
+  const levels = coarsen(g, rng, o.coarsestSize, work.arenas);
+  const start = coarsestBisection(g, levels, rng, o, work, 0.5);
+  const other = coarsestBisection(g, levels, rng, o, work, o.secondStart);
+  if (sameLabels(start.label, other.label)) return null;
+  return refineStart(g, levels, evaluate(coarsestOf(g, levels), other.label, work), o, work);
 }
 
 function sameLabels(a: Int8Array, b: Int8Array): boolean {

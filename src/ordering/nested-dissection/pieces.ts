@@ -20,7 +20,7 @@ import type { Coordinates } from "../coordinates.js";
 import { coordinateCut } from "../coordinates.js";
 import type { SeparatorTree } from "../types.js";
 import {
-  lighter, multilevelSeparator, refineGiven, separate, type BisectOptions,
+  lighter, multilevelSeparator, refineGiven, separate, type BisectOptions, type SecondStartElsewhere,
 } from "./multilevel.js";
 import { complement, denseVertices } from "./dense.js";
 import { isForest, peelHairs, treePostorder } from "./hairs.js";
@@ -146,7 +146,8 @@ export function addNode(s: State, first: number, sepFirst: number, end: number, 
   return s.first.length - 1;
 }
 
-export function processPiece(s: State, pending: Pending): void {
+/** Cuts or orders one piece; `elsewhere`, when given, refines a second start of its cut on another thread. */
+export function processPiece(s: State, pending: Pending, elsewhere?: SecondStartElsewhere): void {
   const g = pending.graph;
   if (g === null) {
     placeLeaf(s, pending);
@@ -161,7 +162,7 @@ export function processPiece(s: State, pending: Pending): void {
     placeLeaf(s, piece);
     return;
   }
-  const label = cutPiece(s, piece);
+  const label = cutPiece(s, piece, elsewhere);
   const sepCount = label === null ? 0 : separatorSize(label);
   if (label === null || sepCount === 0 || sepCount === g.n) {
     placeLeaf(s, piece);
@@ -211,14 +212,14 @@ function attachedVertices(s: State, piece: Piece): Uint8Array {
  * be useful separator material (+2–4 % flops on grids when peeled too).
  * Null when the rest is no larger than a leaf: the piece is then a leaf.
  */
-function cutPiece(s: State, piece: Piece): Int8Array | null {
+function cutPiece(s: State, piece: Piece, elsewhere?: SecondStartElsewhere): Int8Array | null {
   const { graph: g, ids } = piece;
   const rng = pieceRng(s.set.seed, piece.lo, g.n);
   const core = s.hairRoot === null ? null : coreVertices(s.hairRoot, ids);
-  if (core === null || core.length === g.n) return findSeparator(s, piece, rng);
+  if (core === null || core.length === g.n) return findSeparator(s, piece, rng, elsewhere);
   if (core.length <= s.set.leafSize) return null;
   const graph = coreGraph(s, piece, core);
-  return spreadToHairs(s, ids, findSeparator(s, { ...piece, graph, ids: gather(ids, core) }, rng), graph.vertexWeight);
+  return spreadToHairs(s, ids, findSeparator(s, { ...piece, graph, ids: gather(ids, core) }, rng, elsewhere), graph.vertexWeight);
 }
 
 /** The 32-bit finalizer of MurmurHash3 (Appleby 2008): every input bit reaches every output bit. */
@@ -283,14 +284,14 @@ function spreadToHairs(s: State, ids: Int32Array, coreLabel: Int8Array, weight: 
  * a multilevel one and keeps the lighter of it and the multilevel separator
  * (offering the plain cut as a third candidate was measured worse on 2-D grids).
  */
-function findSeparator(s: State, piece: Piece, rng: Rng): Int8Array {
+function findSeparator(s: State, piece: Piece, rng: Rng, elsewhere?: SecondStartElsewhere): Int8Array {
   const { graph: g, ids } = piece;
   const { coordinates: c, coordinateMode: mode, bisect, wholeWeight } = s.set;
-  if (c === undefined || mode === "ignore") return multilevelSeparator(g, rng, bisect, s.work, wholeWeight);
+  if (c === undefined || mode === "ignore") return multilevelSeparator(g, rng, bisect, s.work, wholeWeight, elsewhere);
   const cut = coordinateCut(g, ids, c);
   if (mode === "plain") return separate(g, cut, { ...bisect, separatorRefinement: "none" }, s.work);
   const refined = separate(g, refineGiven(g, cut, bisect, s.work), bisect, s.work);
-  return lighter(g, refined, multilevelSeparator(g, rng, bisect, s.work, wholeWeight));
+  return lighter(g, refined, multilevelSeparator(g, rng, bisect, s.work, wholeWeight, elsewhere));
 }
 
 /**

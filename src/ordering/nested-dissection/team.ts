@@ -10,7 +10,8 @@
  */
 import { AbortedError } from "../../errors.js";
 import type { Graph } from "../../graph/types.js";
-import { addNode, drain, newState, processPiece, type Pending, type Settings, type State } from "./pieces.js";
+import { secondStartOnly, type SecondStartElsewhere } from "./multilevel.js";
+import { addNode, drain, newState, pieceRng, processPiece, type Pending, type Settings, type State } from "./pieces.js";
 import { fmWork } from "./refine.js";
 import {
   askForPiece, awaitEvent, defaultHelperScript, helperPlaced, releaseHelper, sendJob, signal, Slot, takeHelper, takeMessage, type Helper,
@@ -32,8 +33,8 @@ export interface HelperInit {
   settings: Settings;
 }
 
-/** A piece as sent to a helper; parent ≤ -2 names node -2 − parent of the sending thread. */
-export interface PieceMessage {
+/** A weighted graph as sent between threads. */
+export interface GraphMessage {
   n: number;
   offsets: Int32Array;
   neighbours: Int32Array;
@@ -42,6 +43,10 @@ export interface PieceMessage {
   vertexWeight: Int32Array;
   totalWeight: number;
   maxVertexWeight: number;
+}
+
+/** A piece as sent between threads; see {@link toMessage} for `parent`. */
+export interface PieceMessage extends GraphMessage {
   ids: Int32Array;
   lo: number;
   parent: number;
@@ -96,16 +101,18 @@ const BALANCE = 1.1;
  * pieces (the others go back to the pool).
  */
 export function shareOut(s: State, team: Member[], tick: () => void): Member[] {
-  const parts = team.length + 1;
-  let groups = group(openPieces(s), parts);
-  for (let cuts = 0; cuts < 4 * parts && !groups.balanced; cuts++) {
+  let groups = group(openPieces(s), team.length + 1);
+  for (let cuts = 0; cuts < 4 * (team.length + 1) && !groups.balanced; cuts++) {
     const open = openPieces(s);
-    if (open.length === 0) break;
+    if (open.length === 0 || team.length === 0) break;
     tick();
     s.stack.splice(s.stack.indexOf(open[0]), 1);
-    processPiece(s, open[0]);
-    groups = group(openPieces(s), parts);
+    const failed = { helper: false };
+    processPiece(s, open[0], secondStartOn(s, team[0], open[0], tick, failed));
+    if (failed.helper) team = team.slice(1);
+    groups = group(openPieces(s), team.length + 1);
   }
+  const parts = team.length + 1;
   const init: HelperInit = { offsets: s.top.offsets, neighbours: s.top.neighbours, hairRoot: s.hairRoot, settings: s.set };
   const busy: Member[] = [];
   for (let i = 1; i < parts; i++) {
@@ -157,12 +164,49 @@ function own(a: Int32Array): Int32Array {
  * (its own nodes ≥ 0, the caller's already written -2 - j).
  */
 function toMessage(p: Pending, parent: number): PieceMessage {
-  const g = p.graph!;
+  return { ...graphMessage(p.graph!), ids: own(p.ids), lo: p.lo, parent, leaf: p.leaf };
+}
+
+/** A graph as (part of) a message. */
+function graphMessage(g: WGraph): GraphMessage {
   return {
     n: g.n, offsets: own(g.offsets), neighbours: own(g.neighbours), edgeWeight: g.unitEdges ? null : own(g.edgeWeight),
     vertexWeight: own(g.vertexWeight), totalWeight: g.totalWeight, maxVertexWeight: g.maxVertexWeight,
-    ids: own(p.ids), lo: p.lo, parent, leaf: p.leaf,
   };
+}
+
+/** The job of refining one piece's second start: the graph to cut and the key of the piece's random stream. */
+export interface StartJob {
+  kind: "start";
+  settings: Settings;
+  graph: GraphMessage;
+  lo: number;
+  n: number;
+}
+
+/**
+ * While this thread cuts `piece`, the helper refines the cut's second start
+ * (see multilevelSeparator); a helper that fails is stopped and `failed.helper` set.
+ */
+function secondStartOn(s: State, m: Member, piece: Pending, tick: () => void, failed: { helper: boolean }): SecondStartElsewhere {
+  return (g) => {
+    const job: StartJob = { kind: "start", settings: s.set, graph: graphMessage(g), lo: piece.lo, n: piece.graph!.n };
+    sendJob(m.helper, job);
+    return () => {
+      const r = awaitEvent(m.helper, tick) === "done" ? takeMessage<{ label: Int8Array | null; error?: string }>(m.helper) : null;
+      if (r !== null && r.error === undefined) return r.label;
+      releaseHelper(m.helper, true);
+      failed.helper = true;
+      return undefined;
+    };
+  };
+}
+
+/** The helper's side of {@link secondStartOn}. */
+export function secondStart(job: StartJob, ones: Int32Array | null): { label: Int8Array | null } {
+  const g = fromMessage(job.graph, ones ?? new Int32Array(job.graph.neighbours.length).fill(1));
+  const label = secondStartOnly(g, pieceRng(job.settings.seed, job.lo, job.n), job.settings.bisect, fmWork(g.n, g.neighbours.length));
+  return { label };
 }
 
 /**
@@ -180,6 +224,7 @@ export function joinTeam(s: State, team: Member[], tick: () => void): number {
     const r = helpWhileWaiting(s, m, tick);
     m.working = false;
     if (r === null) {
+      releaseHelper(m.helper, true);
       truncateNodes(s, mark.nodes);
       s.placed = mark.placed;
       s.stack.push(...m.pieces);
@@ -295,7 +340,7 @@ function offer(s: State, control: Int32Array, give: (message: { piece: PieceMess
   signal(control);
 }
 
-function fromMessage(p: PieceMessage, ones: Int32Array): WGraph {
+function fromMessage(p: GraphMessage, ones: Int32Array): WGraph {
   return {
     n: p.n, offsets: p.offsets, neighbours: p.neighbours, edgeWeight: p.edgeWeight ?? ones.subarray(0, p.neighbours.length),
     vertexWeight: p.vertexWeight, totalWeight: p.totalWeight, maxVertexWeight: p.maxVertexWeight, unitEdges: p.edgeWeight === null,
