@@ -12,7 +12,7 @@ import { AbortedError } from "../../errors.js";
 import type { Graph } from "../../graph/types.js";
 import { secondStartOnly, type SecondStartElsewhere } from "./multilevel.js";
 import { addNode, drain, newState, pieceRng, processPiece, type Pending, type Settings, type State } from "./pieces.js";
-import { fmWork } from "./refine.js";
+import { fmWork, type FmWork } from "./refine.js";
 import {
   askForPiece, awaitEvent, defaultHelperScript, helperPlaced, releaseHelper, sendJob, signal, Slot, takeHelper, takeMessage, type Helper,
 } from "./threads.js";
@@ -205,7 +205,9 @@ function secondStartOn(s: State, m: Member, piece: Pending, tick: () => void, fa
 /** The helper's side of {@link secondStartOn}. */
 export function secondStart(job: StartJob, ones: Int32Array | null): { label: Int8Array | null } {
   const g = fromMessage(job.graph, ones ?? new Int32Array(job.graph.neighbours.length).fill(1));
-  const label = secondStartOnly(g, pieceRng(job.settings.seed, job.lo, job.n), job.settings.bisect, fmWork(g.n, g.neighbours.length));
+  const space = takeWork(g.n, g.neighbours.length);
+  const label = secondStartOnly(g, pieceRng(job.settings.seed, job.lo, job.n), job.settings.bisect, space.work);
+  keepWork(space);
   return { label };
 }
 
@@ -298,7 +300,8 @@ export function dissectPieces(
   let edges = 1;
   for (const p of pieces) { most = Math.max(most, p.n); edges = Math.max(edges, p.neighbours.length); }
   const ones = new Int32Array(edges).fill(1);
-  const s = newState(top, init.settings, orderLeaf, fmWork(most, edges), ones, init.hairRoot);
+  const space = takeWork(most, edges);
+  const s = newState(top, init.settings, orderLeaf, space.work, ones, init.hairRoot);
   for (const p of pieces) s.stack.push({ graph: fromMessage(p, ones), ids: p.ids, lo: p.lo, parent: p.parent, leaf: p.leaf });
   drain(s, () => {
     if (Atomics.load(control, Slot.Abort) === 1) throw new AbortedError("nested dissection helper stopped");
@@ -306,10 +309,32 @@ export function dissectPieces(
     Atomics.add(control, Slot.Beat, 1);
     if (Atomics.load(control, Slot.Want) === 1 && Atomics.load(control, Slot.Given) === 0) offer(s, control, give);
   });
+  keepWork(space);
   return {
     perm: s.perm, first: Int32Array.from(s.first), sepFirst: Int32Array.from(s.sepFirst), end: Int32Array.from(s.end),
     parent: Int32Array.from(s.parent), placed: s.placed,
   };
+}
+
+/**
+ * The helper's workspace, kept between its jobs (allocating and first touching
+ * it costs tens of milliseconds on 10⁶-vertex pieces). A job that fails does
+ * not give it back: it may have been left in the middle of a use.
+ */
+let kept: Workspace | null = null;
+
+/** A workspace and the largest piece it was made for. */
+interface Workspace { work: FmWork; most: number; edges: number }
+
+/** A workspace for pieces of up to `most` vertices and `edges` list entries. */
+function takeWork(most: number, edges: number): Workspace {
+  const k = kept;
+  kept = null;
+  return k !== null && k.most >= most && k.edges >= edges ? k : { work: fmWork(most, edges), most, edges };
+}
+
+function keepWork(w: Workspace): void {
+  kept = w;
 }
 
 /** Pieces smaller than this many leaves are not worth handing over. */
