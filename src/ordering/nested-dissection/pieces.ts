@@ -1,7 +1,7 @@
 /**
- * Nested dissection (George 1973, "Nested dissection of a regular finite
- * element mesh", SIAM J. Numer. Anal. 10(2)) driven by multilevel vertex
- * bisection. Pieces are processed from an explicit stack (no recursion): a
+ * The pieces of a nested dissection (George 1973, "Nested dissection of a
+ * regular finite element mesh", SIAM J. Numer. Anal. 10(2)) and how each is
+ * processed. Pieces are processed from an explicit stack (no recursion): a
  * piece is split into its connected components, a large connected piece is cut
  * by a vertex separator numbered last in its range, and pieces below the leaf
  * size are ordered by the supplied leaf ordering (minimum degree). Produces the

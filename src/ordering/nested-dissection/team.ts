@@ -192,8 +192,10 @@ function secondStartOn(s: State, m: Member, piece: Pending, tick: () => void, fa
   return (g) => {
     const job: StartJob = { kind: "start", settings: s.set, graph: graphMessage(g), lo: piece.lo, n: piece.graph!.n };
     sendJob(m.helper, job);
+    m.working = true; // until the result is in: a helper left working (an abort meanwhile) is stopped, not pooled
     return () => {
       const r = awaitEvent(m.helper, tick) === "done" ? takeMessage<{ label: Int8Array | null; error?: string }>(m.helper) : null;
+      m.working = false;
       if (r !== null && r.error === undefined) return r.label;
       releaseHelper(m.helper, true);
       failed.helper = true;
@@ -203,8 +205,8 @@ function secondStartOn(s: State, m: Member, piece: Pending, tick: () => void, fa
 }
 
 /** The helper's side of {@link secondStartOn}. */
-export function secondStart(job: StartJob, ones: Int32Array | null): { label: Int8Array | null } {
-  const g = fromMessage(job.graph, ones ?? new Int32Array(job.graph.neighbours.length).fill(1));
+export function secondStart(job: StartJob): { label: Int8Array | null } {
+  const g = fromMessage(job.graph, new Int32Array(job.graph.neighbours.length).fill(1));
   const space = takeWork(g.n, g.neighbours.length);
   const label = secondStartOnly(g, pieceRng(job.settings.seed, job.lo, job.n), job.settings.bisect, space.work);
   keepWork(space);

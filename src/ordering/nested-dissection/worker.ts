@@ -17,7 +17,7 @@ port.on("message", (job: { init: HelperInit; pieces: PieceMessage[] } | StartJob
   let state = 1;
   try {
     if ("kind" in job) {
-      const r = secondStart(job, null);
+      const r = secondStart(job);
       port.postMessage(r, r.label === null ? [] : [r.label.buffer as ArrayBuffer]);
     } else {
       const r = dissectPieces(job.init, job.pieces, control, orderLeaf, (m) => port.postMessage(m));
