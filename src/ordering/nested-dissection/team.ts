@@ -320,8 +320,9 @@ export function dissectPieces(
 
 /**
  * The helper's workspace, kept between its jobs (allocating and first touching
- * it costs tens of milliseconds on 10⁶-vertex pieces). A job that fails does
- * not give it back: it may have been left in the middle of a use.
+ * it costs tens of milliseconds on 10⁶-vertex pieces) until the helper has
+ * been idle for KEEP_MS. A job that fails does not give it back: it may have
+ * been left in the middle of a use.
  */
 let kept: Workspace | null = null;
 
@@ -335,8 +336,14 @@ function takeWork(most: number, edges: number): Workspace {
   return k !== null && k.most >= most && k.edges >= edges ? k : { work: fmWork(most, edges), most, edges };
 }
 
+/** An idle helper lets its workspace go after this long (the next job allocates a new one). */
+const KEEP_MS = 10_000;
+let release: ReturnType<typeof setTimeout> | undefined;
+
 function keepWork(w: Workspace): void {
   kept = w;
+  clearTimeout(release);
+  release = setTimeout(() => { kept = null; }, KEEP_MS);
 }
 
 /** Pieces smaller than this many leaves are not worth handing over. */
