@@ -89,7 +89,7 @@ export function takeHelper(script: URL): Helper | null {
   const idle = pool.find((h) => !h.taken && h.script === script.href);
   if (idle !== undefined) { idle.taken = true; return idle; }
   const threads = builtin<Threads>("node:worker_threads");
-  if (threads === null) return null;
+  if (threads === null || !canBlock()) return null;
   try {
     const control = new Int32Array(new SharedArrayBuffer(4 * SLOTS));
     const { port1, port2 } = new threads.MessageChannel();
@@ -102,6 +102,15 @@ export function takeHelper(script: URL): Helper | null {
     return h;
   } catch {
     return null;
+  }
+}
+
+/** Whether this thread may block in Atomics.wait (some runtimes forbid it on their main thread). */
+function canBlock(): boolean {
+  try {
+    return Atomics.wait(new Int32Array(new SharedArrayBuffer(4)), 0, 1, 0) === "not-equal";
+  } catch {
+    return false;
   }
 }
 
