@@ -105,13 +105,18 @@ export function takeHelper(script: URL): Helper | null {
   }
 }
 
-/** Whether this thread may block in Atomics.wait (some runtimes forbid it on their main thread). */
+let blocking: boolean | undefined;
+
+/** Whether this thread may block in Atomics.wait (some runtimes forbid it on their main thread); found once. */
 function canBlock(): boolean {
-  try {
-    return Atomics.wait(new Int32Array(new SharedArrayBuffer(4)), 0, 1, 0) === "not-equal";
-  } catch {
-    return false;
+  if (blocking === undefined) {
+    try {
+      blocking = Atomics.wait(new Int32Array(new SharedArrayBuffer(4)), 0, 1, 0) === "not-equal";
+    } catch {
+      blocking = false;
+    }
   }
+  return blocking;
 }
 
 /**
