@@ -101,6 +101,8 @@ describe("septum: errors a person can act on", () => {
     expectOneLineError(run(["generate", "grid2d", "5", "--stencil", "7", "-o", "g.mtx"]), 2, "--stencil: expected 5 or 9");
     expectOneLineError(run(["generate", "mesh2d", "10", "-o", "g.mtx"]), 1, "mesh2d size must be an integer in 60..6000");
     expectOneLineError(run(["report", a]), 2, "-o report.html is required");
+    expectOneLineError(run(["analyze", a, "--threads", "0"]), 2, "--threads: expected an integer in 1..256, got '0'");
+    expectOneLineError(run(["solve", a, "--threads", "two"]), 2, "--threads: expected an integer in 1..256, got 'two'");
     expect(run(["solve", a, "--frobnicate"]).err).toContain("Try 'septum --help'");
   });
 
@@ -249,6 +251,12 @@ describe("septum analyze and report", () => {
     const g = JSON.parse(run(["solve", grid, "--json"]).out);
     expect(g.flops).toBe(Math.min(gnd, gmd));
     expect(g.ordering).toBe(gmd < gnd ? "minimum-degree" : "nested-dissection");
+  });
+
+  it("--threads is accepted and leaves the ordering as it is", () => {
+    const grid = file("g40.mtx", writeMatrixMarket(grid2dLower(40), { symmetric: true }));
+    const nnzL = (threads: string) => JSON.parse(run(["analyze", grid, "--ordering", "nd", "--threads", threads, "--json"]).out).nnzL;
+    expect(nnzL("3")).toBe(nnzL("1"));
   });
 
   it("--compare --json lists every ordering with the same n and nnzA", () => {

@@ -5,7 +5,7 @@ import type { FactorMethod } from "../numeric/types.js";
 import type { OrderingName } from "../solver/analyze.js";
 import type { Analysis } from "../solver/analysis.js";
 import type { CliIO } from "./io.js";
-import { methodOption, numberOption, orderingChoiceOption, ORDERINGS, positionals, shortOrderingName, type Parsed } from "./options.js";
+import { dissectionChoice, methodOption, orderingChoiceOption, ORDERINGS, positionals, shortOrderingName, type DissectionChoice, type Parsed } from "./options.js";
 import { analyzeWith, loadSymmetric } from "./pipeline.js";
 import { progressLine, type ProgressLine } from "./progress.js";
 import { num, secs, table } from "./format.js";
@@ -18,18 +18,18 @@ export interface Analysed {
 }
 
 /** Analyze A with each ordering in turn. */
-export function analyzeAll(io: CliIO, A: SparseMatrix, orderings: readonly OrderingName[], seed: number, line: ProgressLine): Analysed[] {
+export function analyzeAll(io: CliIO, A: SparseMatrix, orderings: readonly OrderingName[], nd: DissectionChoice, line: ProgressLine): Analysed[] {
   return orderings.map((ordering) => {
     const t = io.now();
-    const analysis = analyzeWith(A, ordering, seed, line, orderings.length > 1 ? `${shortOrderingName(ordering)}: ` : "");
+    const analysis = analyzeWith(A, ordering, nd, line, orderings.length > 1 ? `${shortOrderingName(ordering)}: ` : "");
     return { ordering, analysis, seconds: io.now() - t };
   });
 }
 
 /** One analysis with the named ordering, or the library's default choice when none is named. */
-function analyzeOne(io: CliIO, A: SparseMatrix, choice: OrderingName | undefined, seed: number, line: ProgressLine): Analysed {
+function analyzeOne(io: CliIO, A: SparseMatrix, choice: OrderingName | undefined, nd: DissectionChoice, line: ProgressLine): Analysed {
   const t = io.now();
-  const analysis = analyzeWith(A, choice, seed, line);
+  const analysis = analyzeWith(A, choice, nd, line);
   return { ordering: analysis.stats.ordering as OrderingName, analysis, seconds: io.now() - t };
 }
 
@@ -70,10 +70,10 @@ export function analyzeCommand(io: CliIO, p: Parsed): number {
   const [path] = positionals("analyze", p.positionals, ["the matrix file A.mtx"]);
   const choice = orderingChoiceOption(p.values.ordering);
   const method = methodOption(p.values.method);
-  const seed = numberOption("seed", p.values.seed, 1, 0, 2 ** 31 - 1, true);
+  const nd = dissectionChoice(p.values);
   const line = progressLine(io, io.stderrIsTTY && !p.values.quiet);
   const A = loadSymmetric(io, path);
-  const list = p.values.compare ? analyzeAll(io, A, ORDERINGS, seed, line) : [analyzeOne(io, A, choice, seed, line)];
+  const list = p.values.compare ? analyzeAll(io, A, ORDERINGS, nd, line) : [analyzeOne(io, A, choice, nd, line)];
   const ordering = list[0].ordering;
   line.done();
   if (p.values.json) {

@@ -21,7 +21,9 @@ Matrices are read from Matrix Market files (coordinate, real/integer/pattern,
 general or symmetric); indices in messages are 1-based, as in the file.
 `;
 
-const SEED_TEXT = `  --seed N          seed of the randomized parts of nested dissection (default 1)`;
+const SEED_TEXT = `  --seed N          seed of the randomized parts of nested dissection (default 1)
+  --threads N       threads for nested dissection (default: up to 4, no more than
+                    the cores, from 100 000 vertices on); same ordering for any N`;
 
 const ORDERING_TEXT = `  --ordering NAME   auto (default: the fewer flops of nested dissection and
                     minimum degree), nested-dissection (nd), minimum-degree (md),

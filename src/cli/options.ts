@@ -23,9 +23,9 @@ const COMMON: Spec = {
 };
 
 const SPECS: Record<string, Spec> = {
-  solve: { ...COMMON, rhs: { type: "string" }, output: { type: "string", short: "o" }, ordering: { type: "string" }, method: { type: "string" }, json: { type: "boolean" }, seed: { type: "string" }, kernels: { type: "string" } },
-  analyze: { ...COMMON, ordering: { type: "string" }, method: { type: "string" }, json: { type: "boolean" }, compare: { type: "boolean" }, seed: { type: "string" } },
-  report: { ...COMMON, output: { type: "string", short: "o" }, ordering: { type: "string" }, seed: { type: "string" } },
+  solve: { ...COMMON, rhs: { type: "string" }, output: { type: "string", short: "o" }, ordering: { type: "string" }, method: { type: "string" }, json: { type: "boolean" }, seed: { type: "string" }, threads: { type: "string" }, kernels: { type: "string" } },
+  analyze: { ...COMMON, ordering: { type: "string" }, method: { type: "string" }, json: { type: "boolean" }, compare: { type: "boolean" }, seed: { type: "string" }, threads: { type: "string" } },
+  report: { ...COMMON, output: { type: "string", short: "o" }, ordering: { type: "string" }, seed: { type: "string" }, threads: { type: "string" } },
   generate: { ...COMMON, output: { type: "string", short: "o" }, stencil: { type: "string" }, contrast: { type: "string" }, degree: { type: "string" }, seed: { type: "string" } },
   demo: { ...COMMON, output: { type: "string", short: "o" }, size: { type: "string" } },
 };
@@ -80,6 +80,19 @@ export function numberOption(name: string, v: string | boolean | undefined, fall
     throw new UsageError(`--${name}: expected ${integer ? "an integer" : "a number"} in ${lo}..${hi}, got '${v}'`);
   }
   return x;
+}
+
+/** --seed and --threads: how nested dissection runs (threads undefined: the library's default). */
+export interface DissectionChoice {
+  readonly seed: number;
+  readonly threads: number | undefined;
+}
+
+export function dissectionChoice(values: Parsed["values"]): DissectionChoice {
+  return {
+    seed: numberOption("seed", values.seed, 1, 0, 2 ** 31 - 1, true),
+    threads: values.threads === undefined ? undefined : numberOption("threads", values.threads, 1, 1, 256, true),
+  };
 }
 
 /** Exactly `count` positional arguments, named for the message. */

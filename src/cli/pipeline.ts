@@ -11,6 +11,7 @@ import type { Analysis } from "../solver/analysis.js";
 import { readMatrixFile } from "./files.js";
 import { FileError, type CliIO } from "./io.js";
 import type { ProgressLine } from "./progress.js";
+import type { DissectionChoice } from "./options.js";
 
 /** onProgress callback drawing the phase on the progress line. */
 export function progressCallback(line: ProgressLine, prefix = ""): (p: Progress) => void {
@@ -32,8 +33,8 @@ export function loadSymmetric(io: CliIO, path: string): SparseMatrix {
 }
 
 /** Analyze with one ordering (undefined: the library's default choice), progress reported on the line with the given prefix. */
-export function analyzeWith(A: SparseMatrix, ordering: OrderingName | undefined, seed: number, line: ProgressLine, prefix = ""): Analysis {
-  return analyze(A, { ordering, seed, onProgress: progressCallback(line, prefix) });
+export function analyzeWith(A: SparseMatrix, ordering: OrderingName | undefined, nd: DissectionChoice, line: ProgressLine, prefix = ""): Analysis {
+  return analyze(A, { ordering, seed: nd.seed, threads: nd.threads, onProgress: progressCallback(line, prefix) });
 }
 
 /**

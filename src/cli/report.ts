@@ -9,7 +9,7 @@ import { analyzeAll, type Analysed } from "./analyze.js";
 import { writeText } from "./files.js";
 import { UsageError, type CliIO } from "./io.js";
 import { DISSECTION_THRESHOLD } from "../ordering/index.js";
-import { numberOption, orderingChoiceOption, ORDERINGS, positionals, type Parsed } from "./options.js";
+import { dissectionChoice, orderingChoiceOption, ORDERINGS, positionals, type Parsed } from "./options.js";
 import { loadSymmetric } from "./pipeline.js";
 import { progressLine } from "./progress.js";
 import { VERSION } from "./version.js";
@@ -60,10 +60,10 @@ export function reportCommand(io: CliIO, p: Parsed): number {
   const [path] = positionals("report", p.positionals, ["the matrix file A.mtx"]);
   if (!p.values.output) throw new UsageError("report: -o report.html is required");
   const choice = orderingChoiceOption(p.values.ordering);
-  const seed = numberOption("seed", p.values.seed, 1, 0, 2 ** 31 - 1, true);
+  const nd = dissectionChoice(p.values);
   const line = progressLine(io, io.stderrIsTTY && !p.values.quiet);
   const A = loadSymmetric(io, path);
-  const list = analyzeAll(io, A, ORDERINGS, seed, line);
+  const list = analyzeAll(io, A, ORDERINGS, nd, line);
   line.done();
   // the page is about the blocks a dissection exposes: nested dissection unless another ordering (or auto) is asked for
   const shown = p.values.ordering === undefined ? "nested-dissection" : choice ?? defaultShown(list, A.ncols);

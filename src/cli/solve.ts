@@ -4,7 +4,7 @@ import { writeMatrixMarketArray } from "../matrix/market.js";
 import { symmetricMultiply } from "../matrix/symmetric.js";
 import { readRhsFile, writeText } from "./files.js";
 import { FileError, UsageError, type CliIO } from "./io.js";
-import { methodOption, numberOption, orderingChoiceOption, positionals, type Parsed } from "./options.js";
+import { dissectionChoice, methodOption, orderingChoiceOption, positionals, type Parsed } from "./options.js";
 import { analyzeWith, loadSymmetric, pivotMessage, progressCallback } from "./pipeline.js";
 import { progressLine } from "./progress.js";
 import { num, sci, secs } from "./format.js";
@@ -13,7 +13,7 @@ export function solveCommand(io: CliIO, p: Parsed): number {
   const [path] = positionals("solve", p.positionals, ["the matrix file A.mtx"]);
   const choice = orderingChoiceOption(p.values.ordering);
   const method = methodOption(p.values.method);
-  const seed = numberOption("seed", p.values.seed, 1, 0, 2 ** 31 - 1, true);
+  const nd = dissectionChoice(p.values);
   const kernels = kernelsOption(p.values.kernels);
   const line = progressLine(io, io.stderrIsTTY && !p.values.quiet);
   const t0 = io.now();
@@ -21,7 +21,7 @@ export function solveCommand(io: CliIO, p: Parsed): number {
   const n = A.ncols;
   const rhs = p.values.rhs ? readRhsFile(io, String(p.values.rhs), n) : { values: symmetricMultiply(A, new Float64Array(n).fill(1)), columns: 1 };
   const t1 = io.now();
-  const analysis = analyzeWith(A, choice, seed, line);
+  const analysis = analyzeWith(A, choice, nd, line);
   const ordering = analysis.stats.ordering; // the one kept when none was named
   const t2 = io.now();
   let F;
