@@ -90,16 +90,16 @@ export function settingsOf(o: DissectionOptions, n: number, wholeWeight: number)
 /** Orders `graph` by nested dissection; deterministic for a given seed, whatever the number of threads. */
 export function nestedDissection(graph: Graph, o: DissectionOptions = {}): DissectionResult {
   const n = graph.n;
-  const whole = weightedGraph(graph, o.vertexWeights);
-  const set = settingsOf(o, n, whole.totalWeight);
-  const s = newState(graph, set, o.orderLeaf ?? defaultLeafOrdering(), fmWork(n, graph.neighbours.length), whole.edgeWeight, null);
-  const { g, ids, root } = setAsideDense(s, whole);
-  s.hairRoot = hairRoots(g, ids, n);
-  if (s.hairRoot !== null) s.coreAt = new Int32Array(n);
-  // helpers start before the first cut, so that their start-up overlaps it
+  // helpers start first, so that their start-up overlaps the preparation and the first cut
   const helpers = o.orderLeaf === undefined ? Math.floor(o.threads ?? 1) - 1 : 0;
   let team = startTeam(helpers, o.helperScript);
   try {
+    const whole = weightedGraph(graph, o.vertexWeights);
+    const set = settingsOf(o, n, whole.totalWeight);
+    const s = newState(graph, set, o.orderLeaf ?? defaultLeafOrdering(), fmWork(n, graph.neighbours.length), whole.edgeWeight, null);
+    const { g, ids, root } = setAsideDense(s, whole);
+    s.hairRoot = hairRoots(g, ids, n);
+    if (s.hairRoot !== null) s.coreAt = new Int32Array(n);
     pushComponents(s, g, ids, null, 0, 0, root);
     const tick = (): void => checkpoint(s, o, team);
     if (team.length > 0) team = shareOut(s, team, tick);
