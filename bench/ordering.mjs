@@ -2,7 +2,7 @@
 // minimum degree, nested dissection (and nested dissection with node
 // coordinates where the problem has them) on model and unstructured problems.
 // Prints nnz(L) (diagonal included), flops = Σ c_j² (design.md conventions),
-// the ordering's wall and process-CPU seconds (median of RUNS runs of the
+// the ordering's wall and process-CPU seconds (median of RUNS runs, default 3, of the
 // ordering alone; the machine is shared, so CPU time is the steadier figure),
 // flops relative to minimum degree, and "sweeps": the ordering's CPU time in
 // units of one breadth-first sweep of the same graph (median of 7), a measure
@@ -11,8 +11,9 @@
 // not fit in memory.
 //
 //   npm run build && node bench/ordering.mjs            # every problem
-//   RUNS=3 node bench/ordering.mjs grid2-300 grid3-40   # a selection
-//   ONLY=minimum-degree,nested-dissection RUNS=3 node bench/ordering.mjs grid2-1000   # some orderings only
+//   node bench/ordering.mjs grid2-300 grid3-40          # a selection
+//   ONLY=minimum-degree,nested-dissection node bench/ordering.mjs grid2-1000   # some orderings only
+//   RUNS=1 ...                                           # one run each (the first call of a process is the slowest)
 //   THREADS=1 ...                                        # nested dissection on the calling thread only
 // "threads" is the number of threads nested dissection ran on (by default up to
 // 4, no more than the cores, for graphs of 100,000 vertices or more); wall
@@ -20,7 +21,7 @@
 import { SparseMatrix, adjacencyGraph, analyze, computeOrdering } from "../dist/index.js";
 import { measure, sweepSeconds } from "./common.mjs";
 
-const RUNS = Number(process.env.RUNS ?? 1);
+const RUNS = Number(process.env.RUNS ?? 3); // medians of several runs: the machine is shared
 const SEED = Number(process.env.SEED ?? 1);
 const ONLY = process.env.ONLY ? new Set(process.env.ONLY.split(",")) : null;
 const THREADS = process.env.THREADS ? { threads: Number(process.env.THREADS) } : {};
