@@ -85,6 +85,16 @@ describe("nested dissection on helper threads", () => {
     expectSame(awkwardGraph(), { seed: 2, leafSize: 64 }, 2);
   });
 
+  it("gives the one-thread result when the calling thread only takes pieces back from a busy helper", () => {
+    const g = gridGraph(140);
+    const one = nestedDissection(g, { seed: 6, threads: 1 });
+    const back = nestedDissection(g, { seed: 6, threads: 2, helperScript: script, keepNone: true });
+    expect(back.threads).toBe(2);
+    expect(back.takenBack).toBeGreaterThan(0); // the take-back path really ran
+    expect(back.permutation).toEqual(one.permutation);
+    expect(back.separatorTree).toEqual(one.separatorTree);
+  });
+
   it("redoes a failed helper's pieces on the calling thread, with the same result", () => {
     const failing = join(dir, "failing-helper.mjs");
     writeFileSync(failing, `import { workerData } from "node:worker_threads";

@@ -43,6 +43,8 @@ export interface DissectionOptions {
   threads?: number;
   /** The helper script (default: dissection-worker.js beside the bundle); for tests. */
   helperScript?: URL;
+  /** For tests: this thread keeps no group of pieces, so all it cuts below the top it takes back from a helper. */
+  keepNone?: boolean;
 }
 
 /** Nested dissection's result: the ordering, its separator tree and the threads that did the work. */
@@ -50,6 +52,8 @@ export interface DissectionResult extends OrderingResult {
   readonly separatorTree: NonNullable<OrderingResult["separatorTree"]>;
   /** Threads that cut pieces: 1 plus the helpers that ran (a helper that failed is redone here). */
   readonly threads: number;
+  /** Pieces this thread took back from helpers that were still busy. */
+  readonly takenBack: number;
 }
 
 /**
@@ -102,10 +106,10 @@ export function nestedDissection(graph: Graph, o: DissectionOptions = {}): Disse
     if (s.hairRoot !== null) s.coreAt = new Int32Array(n);
     pushComponents(s, g, ids, null, 0, 0, root);
     const tick = (): void => checkpoint(s, o, team);
-    if (team.length > 0) team = shareOut(s, team, tick);
+    if (team.length > 0) team = shareOut(s, team, tick, o.keepNone);
     drain(s, tick);
-    const threads = joinTeam(s, team, tick);
-    return { permutation: s.perm, separatorTree: buildTree(s), threads };
+    const { threads, takenBack } = joinTeam(s, team, tick);
+    return { permutation: s.perm, separatorTree: buildTree(s), threads, takenBack };
   } finally {
     stopTeam(team);
   }

@@ -97,10 +97,11 @@ const BALANCE = 1.1;
 /**
  * Cuts the heaviest open pieces here until the open pieces form team.length + 1
  * balanced groups (at most 4 cuts per thread), keeps the lightest group on the
- * stack and sends each other group to a helper. Returns the members that got
+ * stack (none with `keepNone`, for tests: this thread then only takes pieces
+ * back) and sends each other group to a helper. Returns the members that got
  * pieces (the others go back to the pool).
  */
-export function shareOut(s: State, team: Member[], tick: () => void): Member[] {
+export function shareOut(s: State, team: Member[], tick: () => void, keepNone = false): Member[] {
   let groups = group(openPieces(s), team.length + 1);
   for (let cuts = 0; cuts < 4 * (team.length + 1) && !groups.balanced; cuts++) {
     const open = openPieces(s);
@@ -113,6 +114,7 @@ export function shareOut(s: State, team: Member[], tick: () => void): Member[] {
     groups = group(openPieces(s), team.length + 1);
   }
   const parts = team.length + 1;
+  if (keepNone && parts > 1) groups.bins[1].push(...groups.bins[0].splice(0));
   const init: HelperInit = { offsets: s.top.offsets, neighbours: s.top.neighbours, hairRoot: s.hairRoot, settings: s.set };
   const busy: Member[] = [];
   for (let i = 1; i < parts; i++) {
@@ -219,10 +221,11 @@ export function secondStart(job: StartJob): { label: Int8Array | null } {
  * heaviest open piece between two of its own), so neither thread idles while
  * the other has work. A helper that fails (or does not start) has its pieces
  * cut here, and what this thread did for it is dropped. Returns the number of
- * threads that did work, this one included.
+ * threads that did work, this one included, and the pieces taken back.
  */
-export function joinTeam(s: State, team: Member[], tick: () => void): number {
+export function joinTeam(s: State, team: Member[], tick: () => void): { threads: number; takenBack: number } {
   let threads = 1;
+  let takenBack = 0;
   for (const m of team) {
     const mark = { nodes: s.first.length, placed: s.placed };
     const r = helpWhileWaiting(s, m, tick);
@@ -237,8 +240,9 @@ export function joinTeam(s: State, team: Member[], tick: () => void): number {
     }
     merge(s, m.pieces, r.result, r.taken, mark.nodes);
     threads++;
+    takenBack += r.taken.length;
   }
-  return threads;
+  return { threads, takenBack };
 }
 
 /** Positions this thread filled for a helper: ranges of the pieces it took over. */
