@@ -192,7 +192,8 @@ export interface StartJob {
  */
 function secondStartOn(s: State, m: Member, piece: Pending, tick: () => void, failed: { helper: boolean }): SecondStartElsewhere {
   return (g) => {
-    const job: StartJob = { kind: "start", settings: s.set, graph: graphMessage(g), lo: piece.lo, n: piece.graph!.n };
+    // the coordinates play no part in a multilevel start: not copied to the helper
+    const job: StartJob = { kind: "start", settings: { ...s.set, coordinates: undefined }, graph: graphMessage(g), lo: piece.lo, n: piece.graph!.n };
     sendJob(m.helper, job);
     m.working = true; // until the result is in: a helper left working (an abort meanwhile) is stopped, not pooled
     return () => {
