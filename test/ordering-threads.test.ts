@@ -134,17 +134,19 @@ port.on("message", () => {
 });
 
 describe("threads option of computeOrdering", () => {
-  it("rejects a thread count that is not a positive integer, naming it", () => {
+  it("rejects a thread count that is not an integer in 1..256, naming it, whatever the ordering", () => {
     const g = gridGraph(20);
-    for (const threads of [0, -1, 1.5, Number.NaN]) {
-      expect(() => computeOrdering(g, { ordering: "nested-dissection", threads })).toThrow(InputError);
+    for (const threads of [0, -1, 1.5, Number.NaN, 257]) {
+      for (const ordering of ["nested-dissection", "minimum-degree"] as const) {
+        expect(() => computeOrdering(g, { ordering, threads })).toThrow(InputError);
+      }
     }
-    expect(() => computeOrdering(g, { ordering: "nested-dissection", threads: 1.5 })).toThrow(/threads must be a positive integer, got 1\.5/);
+    expect(() => computeOrdering(g, { ordering: "nested-dissection", threads: 1.5 })).toThrow(/threads must be an integer in 1\.\.256, got 1\.5/);
   });
 
   it("is passed on by analyze, which rejects a bad count the same way", () => {
     const A = grid2d(30).matrix;
-    expect(() => analyze(A, { ordering: "nested-dissection", threads: 0 })).toThrow(/threads must be a positive integer, got 0/);
+    expect(() => analyze(A, { ordering: "nested-dissection", threads: 0 })).toThrow(/threads must be an integer in 1\.\.256, got 0/);
     expect(analyze(A, { ordering: "nested-dissection", threads: 2 }).permutation).toEqual(analyze(A, { ordering: "nested-dissection", threads: 1 }).permutation);
   });
 

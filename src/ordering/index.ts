@@ -49,7 +49,7 @@ export interface OrderingOptions {
    * compression), else 1. Helper threads run in Node only (worker_threads,
    * with the caller blocked until they finish); elsewhere, or when they cannot
    * start, all runs on the calling thread. The ordering is the same for any
-   * number of threads.
+   * number of threads. An integer in 1..256 (checked for every ordering).
    */
   threads?: number;
 }
@@ -73,6 +73,10 @@ export function computeOrdering(g: Graph, options: OrderingOptions = {}): Orderi
   const choice = options.ordering ?? (n > DISSECTION_THRESHOLD ? "nested-dissection" : "minimum-degree");
   if (options.seed !== undefined && !Number.isFinite(options.seed)) {
     throw new InputError(`seed must be a finite number, got ${String(options.seed)}`);
+  }
+  const t = options.threads;
+  if (t !== undefined && !(Number.isInteger(t) && t >= 1 && t <= MAX_THREADS)) {
+    throw new InputError(`threads must be an integer in 1..${MAX_THREADS}, got ${String(t)}`);
   }
   let result: OrderingResult;
   if (choice instanceof Int32Array) result = { permutation: validatePermutation(choice, n), name: "user" };
@@ -118,12 +122,12 @@ export const PARALLEL_THRESHOLD = 100_000;
 /** Most threads used by default. */
 const DEFAULT_THREADS = 4;
 
-/** Threads for dissecting an n-vertex graph: the caller's number (checked), or the default. */
+/** Most threads a caller may ask for. */
+const MAX_THREADS = 256;
+
+/** Threads for dissecting an n-vertex graph: the caller's number (checked in computeOrdering), or the default. */
 function threadsFor(n: number, requested: number | undefined): number {
-  if (requested !== undefined) {
-    if (!Number.isInteger(requested) || requested < 1) throw new InputError(`threads must be a positive integer, got ${String(requested)}`);
-    return requested;
-  }
+  if (requested !== undefined) return requested;
   return n >= PARALLEL_THRESHOLD ? Math.min(DEFAULT_THREADS, availableCores()) : 1;
 }
 
