@@ -22,7 +22,7 @@ import type { Graph } from "../src/graph/types.js";
 import { validateCoordinates } from "../src/ordering/coordinates.js";
 import { computeOrdering } from "../src/ordering/index.js";
 import { nestedDissection, type DissectionOptions } from "../src/ordering/nested-dissection/index.js";
-import { Slot } from "../src/ordering/nested-dissection/threads.js";
+import { Slot, takeHelper } from "../src/ordering/nested-dissection/threads.js";
 import { cubeGraph, expectPermutation, expectTreeConsistent, graphOf, gridGraph } from "./helpers/graphs.js";
 
 let dir = "";
@@ -114,6 +114,18 @@ port.on("message", () => {
     expect(r.permutation).toEqual(one.permutation);
     expect(r.separatorTree).toEqual(one.separatorTree);
   });
+
+  it("gives up a helper script that never starts, once: same result, and the script is not tried again", () => {
+    const broken = join(dir, "broken-helper.mjs");
+    writeFileSync(broken, `throw new Error("this helper script cannot start");\n`);
+    const url = pathToFileURL(broken);
+    const g = gridGraph(100);
+    const one = nestedDissection(g, { threads: 1 });
+    const r = nestedDissection(g, { threads: 2, helperScript: url }); // waits for the start-up limit, then cuts alone
+    expect(r.threads).toBe(1);
+    expect(r.permutation).toEqual(one.permutation);
+    expect(takeHelper(url)).toBeNull(); // remembered for the rest of the process
+  }, 30_000);
 
   it("stops on an aborted signal while helpers work, and helpers serve the next call", () => {
     const g = gridGraph(150);

@@ -88,12 +88,14 @@ const pool: Helper[] = [];
 export function takeHelper(script: URL): Helper | null {
   const idle = pool.find((h) => !h.taken && h.script === script.href);
   if (idle !== undefined) { idle.taken = true; return idle; }
+  if (neverStarted.has(script.href)) return null;
   const threads = builtin<Threads>("node:worker_threads");
   if (threads === null || !canBlock()) return null;
   try {
     const control = new Int32Array(new SharedArrayBuffer(4 * SLOTS));
     const { port1, port2 } = new threads.MessageChannel();
-    const worker = new threads.Worker(script, { workerData: { control, port: port2 }, transferList: [port2] });
+    // no inherited flags: `node -e` / `--input-type` (and others meant for the main script) stop a worker from starting
+    const worker = new threads.Worker(script, { workerData: { control, port: port2 }, transferList: [port2], execArgv: [] });
     worker.unref();
     port1.unref();
     const h: Helper = { threads, worker, port: port1, control, script: script.href, taken: true };
@@ -139,8 +141,13 @@ export function askForPiece(h: Helper): void {
   Atomics.store(h.control, Slot.Want, 1);
 }
 
-/** A helper that has not started within this time is given up (its work is redone by the caller). */
-const START_MS = 20_000;
+/**
+ * A helper that has not started within this time is given up (its work is
+ * redone by the caller), and its script is not tried again in this process:
+ * a script that cannot start would otherwise cost this wait on every call.
+ */
+const START_MS = 5_000;
+const neverStarted = new Set<string>();
 /** A helper that shows no sign of life for this long is given up. */
 const SILENT_MS = 120_000;
 /** The caller wakes this often while it waits, to report progress. */
@@ -172,7 +179,8 @@ export function awaitEvent(h: Helper, tick: () => void): HelperEvent {
     const now = performance.now();
     if (beat !== last) { last = beat; since = now; }
     const started = Atomics.load(c, Slot.Started) === 1;
-    if ((!started && now - t0 > START_MS) || (started && now - since > SILENT_MS)) return "failed";
+    if (!started && now - t0 > START_MS) { neverStarted.add(h.script); return "failed"; }
+    if (started && now - since > SILENT_MS) return "failed";
   }
 }
 
