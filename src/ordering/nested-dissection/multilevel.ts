@@ -137,19 +137,30 @@ function separateState(g: WGraph, from: Int8Array | Bisection, o: BisectOptions,
 export function multilevelSeparator(g: WGraph, rng: Rng, o: BisectOptions, work: FmWork, wholeWeight = g.totalWeight, elsewhere?: SecondStartElsewhere): Int8Array {
   const second = hasSecondStart(g, o, wholeWeight);
   const collect = second && elsewhere !== undefined ? elsewhere(g) : null;
-  const levels = coarsen(g, rng, o.coarsestSize, work.arenas);
-  const start = coarsestBisection(g, levels, rng, o, work, 0.5);
-  if (!second) return refineStart(g, levels, start, o, work);
-  const other = coarsestBisection(g, levels, rng, o, work, o.secondStart);
-  // about a third of the second starts end, after FM on the coarsest graph, as the very same
-  // bisection; the refinement draws no random numbers, so it would repeat the first result
-  const same = sameLabels(start.label, other.label);
+  const { levels, start, other, same } = coarseStarts(g, rng, o, work, second);
+  if (other === null) return refineStart(g, levels, start, o, work);
   // each start is evaluated again just before its refinement: the cover step reads the work's boundary list
   const coarsest = coarsestOf(g, levels);
   const a = refineStart(g, levels, evaluate(coarsest, start.label, work), o, work);
   const remote = collect === null ? undefined : collect();
   if (same) return a;
   return lighter(g, a, remote ?? refineStart(g, levels, evaluate(coarsest, other.label, work), o, work));
+}
+
+/**
+ * The hierarchy of g and its coarsest start (and, with `second`, the second
+ * start, null otherwise), drawn from rng in one fixed order: another thread
+ * refining the second start ({@link secondStartOnly}) must draw exactly alike.
+ * About a third of the second starts end, after FM on the coarsest graph, as
+ * the very same bisection (`same`); the refinement draws no random numbers,
+ * so it would repeat the first result.
+ */
+function coarseStarts(g: WGraph, rng: Rng, o: BisectOptions, work: FmWork, second: boolean): { levels: Level[]; start: Bisection; other: Bisection | null; same: boolean } {
+  const levels = coarsen(g, rng, o.coarsestSize, work.arenas);
+  const start = coarsestBisection(g, levels, rng, o, work, 0.5);
+  if (!second) return { levels, start, other: null, same: false };
+  const other = coarsestBisection(g, levels, rng, o, work, o.secondStart);
+  return { levels, start, other, same: sameLabels(start.label, other.label) };
 }
 
 /**
@@ -171,10 +182,8 @@ export function hasSecondStart(g: WGraph, o: BisectOptions, wholeWeight: number)
  * the piece); null when it is the same as the first start.
  */
 export function secondStartOnly(g: WGraph, rng: Rng, o: BisectOptions, work: FmWork): Int8Array | null {
-  const levels = coarsen(g, rng, o.coarsestSize, work.arenas);
-  const start = coarsestBisection(g, levels, rng, o, work, 0.5);
-  const other = coarsestBisection(g, levels, rng, o, work, o.secondStart);
-  if (sameLabels(start.label, other.label)) return null;
+  const { levels, other, same } = coarseStarts(g, rng, o, work, true);
+  if (same || other === null) return null;
   return refineStart(g, levels, evaluate(coarsestOf(g, levels), other.label, work), o, work);
 }
 
