@@ -13,13 +13,13 @@ import { leafMinimumDegree, leafWork } from "../leaf-degree.js";
 import type { OrderingResult } from "../types.js";
 import { defaultBisectOptions, type BisectOptions } from "./multilevel.js";
 import {
-  buildTree, drain, hairRoots, newState, pushComponents, setAsideDense, type CoordinateMode, type LeafOrdering, type Settings, type State,
+  buildTree, drain, newState, pushComponents, setAsideDense, setHairs, type CoordinateMode, type LeafOrdering, type Settings, type State,
 } from "./pieces.js";
 import { fmWork } from "./refine.js";
 import { joinTeam, shareOut, startTeam, stopTeam, teamPlaced, type Member } from "./team.js";
 import { weightedGraph } from "./wgraph.js";
 
-export { pieceRng, type CoordinateMode, type LeafOrdering } from "./pieces.js";
+export type { CoordinateMode, LeafOrdering } from "./pieces.js";
 
 /** Options of {@link nestedDissection}. */
 export interface DissectionOptions {
@@ -84,7 +84,7 @@ export function defaultLeafOrdering(): LeafOrdering {
 }
 
 /** The settings of a dissection of `graph` (total vertex weight `wholeWeight`) under options o. */
-export function settingsOf(o: DissectionOptions, n: number, wholeWeight: number): Settings {
+function settingsOf(o: DissectionOptions, n: number, wholeWeight: number): Settings {
   return {
     seed: o.seed ?? 1, leafSize: o.leafSize ?? defaultLeafSize(n), bisect: { ...defaultBisectOptions, ...o.bisect },
     coordinates: o.coordinates, coordinateMode: o.coordinateMode ?? "refine", wholeWeight,
@@ -102,8 +102,7 @@ export function nestedDissection(graph: Graph, o: DissectionOptions = {}): Disse
     const set = settingsOf(o, n, whole.totalWeight);
     const s = newState(graph, set, o.orderLeaf ?? defaultLeafOrdering(), fmWork(n, graph.neighbours.length), whole.edgeWeight, null);
     const { g, ids, root } = setAsideDense(s, whole);
-    s.hairRoot = hairRoots(g, ids, n);
-    if (s.hairRoot !== null) s.coreAt = new Int32Array(n);
+    setHairs(s, g, ids);
     pushComponents(s, g, ids, null, 0, 0, root);
     const tick = (): void => checkpoint(s, o, team);
     if (team.length > 0) team = shareOut(s, team, tick, o.keepNone);

@@ -90,7 +90,7 @@ export interface State {
 
 /**
  * Empty state for dissecting pieces of `top`; `work` is sized for the largest
- * piece, `ones` as long as its lists, `hairRoot` from {@link hairRoots}.
+ * piece, `ones` as long as its lists, `hairRoot` as {@link setHairs} finds it.
  */
 export function newState(top: Graph, set: Settings, orderLeaf: LeafOrdering, work: FmWork, ones: Int32Array, hairRoot: Int32Array | null): State {
   const n = top.n;
@@ -131,8 +131,14 @@ export function setAsideDense(s: State, whole: WGraph): { g: WGraph; ids: Int32A
   return { g: inducedSubgraph(whole, ids, s.localOf), ids, root: addNode(s, 0, n - dense.length, n, -1) };
 }
 
+/** Finds the input hairs of g (vertex ids `ids`) and sets s.hairRoot and its workspace s.coreAt. */
+export function setHairs(s: State, g: WGraph, ids: Int32Array): void {
+  s.hairRoot = hairRoots(g, ids, s.top.n);
+  s.coreAt = new Int32Array(s.hairRoot === null ? 0 : s.top.n);
+}
+
 /** Input hairs of g (vertex ids `ids` among n) as a map over all n ids; null when there are none or g is a forest (all postordered). */
-export function hairRoots(g: WGraph, ids: Int32Array, n: number): Int32Array | null {
+function hairRoots(g: WGraph, ids: Int32Array, n: number): Int32Array | null {
   const hairs = isForest(g) ? null : peelHairs(g);
   if (hairs === null) return null;
   const root = new Int32Array(n);

@@ -11,7 +11,7 @@
 import { AbortedError } from "../../errors.js";
 import type { Graph } from "../../graph/types.js";
 import { secondStartOnly, type SecondStartElsewhere } from "./multilevel.js";
-import { addNode, drain, newState, pieceRng, processPiece, type Pending, type Settings, type State } from "./pieces.js";
+import { addNode, drain, newState, pieceRng, processPiece, type LeafOrdering, type Pending, type Settings, type State } from "./pieces.js";
 import { fmWork, type FmWork } from "./refine.js";
 import {
   askForPiece, awaitEvent, defaultHelperScript, helperPlaced, releaseHelper, sendJob, signal, Slot, takeHelper, takeMessage, type Helper,
@@ -209,8 +209,8 @@ function secondStartOn(s: State, m: Member, piece: Pending, tick: () => void, fa
 
 /** The helper's side of {@link secondStartOn}. */
 export function secondStart(job: StartJob): { label: Int8Array | null } {
-  const g = fromMessage(job.graph, new Int32Array(job.graph.neighbours.length).fill(1));
-  const space = takeWork(g.n, g.neighbours.length);
+  const space = takeWork(job.graph.n, job.graph.neighbours.length);
+  const g = fromMessage(job.graph, space.ones);
   const label = secondStartOnly(g, pieceRng(job.settings.seed, job.lo, job.n), job.settings.bisect, space.work);
   keepWork(space);
   return { label };
@@ -300,16 +300,15 @@ function merge(s: State, pieces: Pending[], r: HelperResult, taken: Taken, from:
  * for the largest, and reports progress and signs of life through `control`.
  */
 export function dissectPieces(
-  init: HelperInit, pieces: PieceMessage[], control: Int32Array, orderLeaf: (g: Graph, halo: number) => Int32Array, give: (message: { piece: PieceMessage }) => void,
+  init: HelperInit, pieces: PieceMessage[], control: Int32Array, orderLeaf: LeafOrdering, give: (message: { piece: PieceMessage }) => void,
 ): HelperResult {
   const top: Graph = { n: init.offsets.length - 1, offsets: init.offsets, neighbours: init.neighbours };
   let most = 1;
   let edges = 1;
   for (const p of pieces) { most = Math.max(most, p.n); edges = Math.max(edges, p.neighbours.length); }
-  const ones = new Int32Array(edges).fill(1);
   const space = takeWork(most, edges);
-  const s = newState(top, init.settings, orderLeaf, space.work, ones, init.hairRoot);
-  for (const p of pieces) s.stack.push({ graph: fromMessage(p, ones), ids: p.ids, lo: p.lo, parent: p.parent, leaf: p.leaf });
+  const s = newState(top, init.settings, orderLeaf, space.work, space.ones, init.hairRoot);
+  for (const p of pieces) s.stack.push({ graph: fromMessage(p, space.ones), ids: p.ids, lo: p.lo, parent: p.parent, leaf: p.leaf });
   drain(s, () => {
     if (Atomics.load(control, Slot.Abort) === 1) throw new AbortedError("nested dissection helper stopped");
     Atomics.store(control, Slot.Placed, s.placed);
@@ -331,14 +330,15 @@ export function dissectPieces(
  */
 let kept: Workspace | null = null;
 
-/** A workspace and the largest piece it was made for. */
-interface Workspace { work: FmWork; most: number; edges: number }
+/** A workspace, edge weights all ones for unit-weight pieces, and the largest piece they were made for. */
+interface Workspace { work: FmWork; ones: Int32Array; most: number; edges: number }
 
 /** A workspace for pieces of up to `most` vertices and `edges` list entries. */
 function takeWork(most: number, edges: number): Workspace {
   const k = kept;
   kept = null;
-  return k !== null && k.most >= most && k.edges >= edges ? k : { work: fmWork(most, edges), most, edges };
+  if (k !== null && k.most >= most && k.edges >= edges) return k;
+  return { work: fmWork(most, edges), ones: new Int32Array(edges).fill(1), most, edges };
 }
 
 /** An idle helper lets its workspace go after this long (the next job allocates a new one). */
