@@ -121,7 +121,7 @@ export class Factorization {
     try {
       this.load(A);
       this.rowMaxima(A);
-      this.run(options, A.values, this.smallest);
+      this.run(options, A.values);
       this.growth = this.method === "ldlt" ? ldltGrowth(this.input.structure, this.kernels.view(), largest(this.rowMax), this.scratchN) : 1;
     } catch (e) {
       this.failure = e instanceof Error ? `the last factorization failed: ${e.message}` : "the last factorization failed";
@@ -158,9 +158,10 @@ export class Factorization {
   }
 
   /** The multifrontal pass with progress and abort between supernodes. */
-  private run(options: RefactorOptions, values: Float64Array, smallest: { ratio: number; position: number }): void {
+  private run(options: RefactorOptions, values: Float64Array): void {
     const { signal, onProgress } = options;
     if (signal?.aborted) throw new AbortedError("factorization aborted before it started");
+    const smallest = this.smallest;
     smallest.ratio = Infinity;
     smallest.position = -1;
     const st = this.input.structure, w = this.workspace, cum = this.cumulativeFlops;
