@@ -102,16 +102,17 @@ const BALANCE = 1.1;
  * pieces (the others go back to the pool).
  */
 export function shareOut(s: State, team: Member[], tick: () => void, keepNone = false): Member[] {
-  let groups = group(openPieces(s), team.length + 1);
+  let open = openPieces(s);
+  let groups = group(open, team.length + 1);
   for (let cuts = 0; cuts < 4 * (team.length + 1) && !groups.balanced; cuts++) {
-    const open = openPieces(s);
     if (open.length === 0 || team.length === 0) break;
     tick();
     s.stack.splice(s.stack.indexOf(open[0]), 1);
     const failed = { helper: false };
     processPiece(s, open[0], secondStartOn(s, team[0], open[0], tick, failed));
     if (failed.helper) team = team.slice(1);
-    groups = group(openPieces(s), team.length + 1);
+    open = openPieces(s);
+    groups = group(open, team.length + 1);
   }
   const parts = team.length + 1;
   if (keepNone && parts > 1) groups.bins[1].push(...groups.bins[0].splice(0));
