@@ -3,8 +3,12 @@
  * and the piece's place, so the permutation and the separator tree must be
  * exactly those of one thread, whichever thread cut which piece, whether the
  * calling thread took pieces back from a helper, and whether a helper failed
- * (its work is then redone by the caller). The helper script is built from
- * the sources here (tsup, as `npm run build` builds it into dist/).
+ * (its work is then redone by the caller). The reference is therefore the
+ * one-thread run of the same code (a property of the design; no outside
+ * result applies), and validity is checked against the definition of a
+ * separator tree (no edge between sibling subtrees: George 1973) by
+ * expectTreeConsistent. The helper script is built from the sources here
+ * (tsup, as `npm run build` builds it into dist/).
  */
 import { mkdtempSync, writeFileSync } from "node:fs";
 import { tmpdir } from "node:os";
