@@ -1,6 +1,7 @@
 import { describe, expect, it } from "vitest";
 import { AbortedError, InputError } from "../src/errors.js";
 import type { Graph } from "../src/graph/types.js";
+import { SparseMatrix } from "../src/matrix/sparse.js";
 import { expectPermutation, graphOf, gridGraph } from "./helpers/graphs.js";
 import { computeOrdering, DISSECTION_THRESHOLD } from "../src/ordering/index.js";
 import type { SeparatorTree } from "../src/ordering/types.js";
@@ -78,6 +79,18 @@ describe("computeOrdering", () => {
     expect(() => computeOrdering(oneWay, { ordering: "nested-dissection" })).toThrow(InputError);
     const outOfRange = { n: 3, offsets: Int32Array.from([0, 1, 2, 2]), neighbours: Int32Array.from([1, 7]) };
     expect(() => computeOrdering(outOfRange, { ordering: "nested-dissection" })).toThrow(InputError);
+  });
+
+  it("a matrix or a wrongly typed object handed in as the graph is an InputError that says what was expected", () => {
+    // The mistake this guards against: passing A itself (analyze takes a matrix, computeOrdering its graph).
+    const A = SparseMatrix.fromTriplets(2, 2, Int32Array.of(0, 1), Int32Array.of(0, 1), Float64Array.of(1, 1));
+    for (const ordering of ["nested-dissection", "minimum-degree", "reverse-cuthill-mckee", "natural"] as const) {
+      expect(() => computeOrdering(A as unknown as Graph, { ordering })).toThrow(/got a sparse matrix; pass adjacencyGraph/);
+    }
+    const plain = { n: 2, offsets: [0, 1, 2], neighbours: [1, 0] } as unknown as Graph;
+    expect(() => computeOrdering(plain)).toThrow(/must be Int32Arrays/);
+    expect(() => computeOrdering(null as unknown as Graph)).toThrow(/expected a Graph, got null/);
+    expect(() => computeOrdering({ n: 1.5 } as unknown as Graph)).toThrow(/graph.n must be a non-negative integer, got 1.5/);
   });
 
   it("stops with AbortedError when the signal is aborted, before or during the dissection", () => {

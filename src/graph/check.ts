@@ -16,13 +16,32 @@ import type { Graph } from "./types.js";
 
 /** Throws InputError naming the first offending vertex/entry (original numbering). */
 export function checkGraph(graph: Graph, who: string): void {
+  checkGraphShape(graph, who);
   const { n, offsets } = graph;
-  if (!Number.isInteger(n) || n < 0) throw new InputError(`${who}: graph.n must be a non-negative integer, got ${n}`);
   if (offsets.length !== n + 1) {
     throw new InputError(`${who}: graph.offsets has length ${offsets.length}, expected n + 1 = ${n + 1}`);
   }
   if (passesAll(graph)) return;
   reportFirstError(graph, who);
+}
+
+/**
+ * The fields a Graph must have, with their types; a matrix handed in where a
+ * graph belongs is named as such (its adjacency graph comes from adjacencyGraph).
+ */
+export function checkGraphShape(graph: Graph, who: string): void {
+  const g = graph as unknown as Record<string, unknown> | null;
+  if (typeof g !== "object" || g === null) throw new InputError(`${who}: expected a Graph, got ${String(g)}`);
+  if ("colPtr" in g && "rowIdx" in g) {
+    throw new InputError(`${who}: expected a Graph, got a sparse matrix; pass adjacencyGraph(A)`);
+  }
+  const n = g.n;
+  if (typeof n !== "number" || !Number.isInteger(n) || n < 0) {
+    throw new InputError(`${who}: graph.n must be a non-negative integer, got ${String(n)}`);
+  }
+  if (!(g.offsets instanceof Int32Array) || !(g.neighbours instanceof Int32Array)) {
+    throw new InputError(`${who}: graph.offsets and graph.neighbours must be Int32Arrays`);
+  }
 }
 
 /**

@@ -7,7 +7,7 @@
  */
 import { AbortedError, InputError } from "../errors.js";
 import { compressIfSmaller, expandPermutation, type CompressedGraph } from "../graph/compress.js";
-import { checkGraph } from "../graph/check.js";
+import { checkGraph, checkGraphShape } from "../graph/check.js";
 import type { Graph } from "../graph/types.js";
 import { validateCoordinates, type Coordinates } from "./coordinates.js";
 import { minimumDegree } from "./minimum-degree.js";
@@ -68,6 +68,7 @@ const COMPRESSION_RATIO = 0.75;
  * invalid user permutation (naming the first bad entry); AbortedError when the signal fires.
  */
 export function computeOrdering(g: Graph, options: OrderingOptions = {}): OrderingResult {
+  checkGraphShape(g, "computeOrdering");
   const n = g.n;
   if (options.signal?.aborted) throw new AbortedError("ordering aborted before it started");
   const choice = options.ordering ?? (n > DISSECTION_THRESHOLD ? "nested-dissection" : "minimum-degree");
