@@ -218,7 +218,8 @@ export function secondStart(job: StartJob): { label: Int8Array | null } {
 }
 
 /**
- * Waits for each helper and merges its result; while waiting, this thread
+ * Waits for each helper (the one with the most work left first) and merges
+ * its result; while waiting, this thread
  * asks the helper for pieces and cuts them itself (the helper gives away its
  * heaviest open piece between two of its own), so neither thread idles while
  * the other has work. A helper that fails (or does not start) has its pieces
@@ -228,7 +229,9 @@ export function secondStart(job: StartJob): { label: Int8Array | null } {
 export function joinTeam(s: State, team: Member[], tick: () => void): { threads: number; takenBack: number } {
   let threads = 1;
   let takenBack = 0;
-  for (const m of team) {
+  const waiting = team.slice();
+  while (waiting.length > 0) {
+    const m = mostLeft(waiting);
     const mark = { nodes: s.first.length, placed: s.placed };
     const r = helpWhileWaiting(s, m, tick);
     m.working = false;
@@ -245,6 +248,22 @@ export function joinTeam(s: State, team: Member[], tick: () => void): { threads:
     takenBack += r.taken.length;
   }
   return { threads, takenBack };
+}
+
+/**
+ * Takes from the list the helper with the most vertices still to place: the
+ * one whose pieces are most worth taking over (with more than one helper, the
+ * others may finish meanwhile; their results wait until this one is merged).
+ */
+function mostLeft(waiting: Member[]): Member {
+  let best = 0;
+  let most = -Infinity;
+  for (let i = 0; i < waiting.length; i++) {
+    let left = -helperPlaced(waiting[i].helper);
+    for (const p of waiting[i].pieces) left += p.ids.length;
+    if (left > most) { most = left; best = i; }
+  }
+  return waiting.splice(best, 1)[0];
 }
 
 /** Positions this thread filled for a helper: ranges of the pieces it took over. */
