@@ -228,6 +228,7 @@ describe("malformed files: MatrixMarketError with the 1-based line", () => {
     ["array with too many values", "%%MatrixMarket matrix array real general\n1 2\n1\n2\n3\n", 5, "more entries than the 2 announced on line 2"],
     ["array with two values on a line", "%%MatrixMarket matrix array real general\n2 1\n1 2\n", 3, "expected 1 field (value), found 2"],
     ["array size line with three fields", "%%MatrixMarket matrix array real general\n2 1 2\n1\n2\n", 2, "more than 2 fields"],
+    ["duplicates whose sum overflows (1e308 + 1e308 > DBL_MAX, IEEE 754)", H + "3 3 3\n1 1 1e308\n% c\n2 2 1\n\n1 1 1e308\n", 7, "entry (1, 1) summed with the earlier entries at (1, 1) gives Infinity"],
     ["CRLF file with an error on line 4", "%%MatrixMarket matrix coordinate real general\r\n3 3 2\r\n1 1 1\r\n4 1 1\r\n", 4, "row index 4 out of range 1..3"],
   ];
   for (const [name, text, line, message] of cases) {

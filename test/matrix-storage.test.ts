@@ -71,6 +71,11 @@ describe("SparseMatrix construction", () => {
     expect(() => SparseMatrix.fromCSC(2, 2, [0, 1, 2], [0, 5], [1, 1])).toThrow(/entry 1 \(column 1\): row index 5/);
     expect(() => SparseMatrix.fromCSC(2, 2, [0, 1, 3], [0, 1], [1, 1])).toThrow(/announces 3 entries/);
     expect(() => SparseMatrix.fromDense([[1, 2], [3]])).toThrow(/row 1 has 1 entries/);
+    // Duplicates are summed: a sum that overflows (1e308 + 1e308 > DBL_MAX ≈ 1.8e308, IEEE 754) names the duplicate that overflowed.
+    expect(() => SparseMatrix.fromTriplets(2, 2, [1, 0, 1], [1, 0, 1], [1e308, 1, 1e308])).toThrow(InputError);
+    expect(() => SparseMatrix.fromTriplets(2, 2, [1, 0, 1], [1, 0, 1], [1e308, 1, 1e308]))
+      .toThrow(/entry 2 \(row 1, column 1\): summed with the earlier entries at \(1, 1\) it gives Infinity, which is not finite/);
+    expect(() => SparseMatrix.fromCSC(1, 1, [0, 2], [0, 0], [-1e308, -1e308])).toThrow(/entry 1 \(row 0, column 0\).* gives -Infinity/);
     expect(() => lowerTriangle(SparseMatrix.fromDense([[1, 2, 3]]))).toThrow(/must be square, got 1 × 3/);
   });
 });

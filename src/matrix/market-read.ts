@@ -10,7 +10,7 @@
  */
 
 import { InputError, MatrixMarketError } from "../errors.js";
-import { SparseMatrix } from "./sparse.js";
+import { DuplicateSumError, SparseMatrix } from "./sparse.js";
 import { Cursor, decodeText, lineEnd, scanInteger, scanReal } from "./market-scan.js";
 
 /** The value field of a Matrix Market file that septum reads. */
@@ -190,13 +190,31 @@ function readCoordinate(c: Cursor, banner: Banner, comments: string[]): MarketSp
   const rows = new Int32Array(room);
   const cols = new Int32Array(room);
   const vals = new Float64Array(room);
+  const first = { pos: c.pos, line: c.line };
   const stored = readEntries(c, banner, [m, n, nnz], { rows, cols, vals }, comments);
   if (stored < nnz) {
     throw new MatrixMarketError(c.lastLine(), `file ends after ${stored} of the ${nnz} entries announced on line ${sizeLine}`);
   }
   expectNoMore(c, nnz, sizeLine, comments);
-  const matrix = assemble(m, n, { rows, cols, vals });
+  let matrix: SparseMatrix;
+  try {
+    matrix = assemble(m, n, { rows, cols, vals });
+  } catch (e) {
+    if (!(e instanceof DuplicateSumError)) throw e;
+    const at = `(${e.row + 1}, ${e.column + 1})`;
+    throw new MatrixMarketError(entryLine(c.bytes, first, e.entry), `entry ${at} summed with the earlier entries at ${at} gives ${e.sum}, which is not finite`);
+  }
   return { kind: "sparse", matrix, symmetric: banner.symmetric, field: banner.field, comments };
+}
+
+/** Line of the k-th (0-based) entry, counting data lines from `first` (the line after the size line). For error messages only. */
+function entryLine(bytes: Uint8Array, first: { pos: number; line: number }, k: number): number {
+  const c = new Cursor(bytes);
+  c.pos = first.pos;
+  c.line = first.line;
+  for (let t = 0; t < k && c.toContent([]); t++) c.nextLine();
+  c.toContent([]);
+  return c.line;
 }
 
 /**

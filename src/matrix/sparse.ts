@@ -48,7 +48,8 @@ export class SparseMatrix {
 
   /**
    * Assemble from coordinate triplets (0-based). Duplicate (row, col) pairs are
-   * summed. Throws InputError naming the first bad entry.
+   * summed. Throws InputError naming the first bad entry, or the duplicate
+   * whose sum overflows.
    */
   static fromTriplets(nrows: number, ncols: number, rows: IndexArray, cols: IndexArray, values: ValueArray): SparseMatrix {
     checkDimension("nrows", nrows);
@@ -204,6 +205,19 @@ export function transposeArrays(
   return { colPtr: tPtr, rowIdx: tIdx, values: tVal };
 }
 
+/**
+ * Duplicates whose sum overflows to ±Infinity: `entry` is the (0-based)
+ * triplet that made the running sum non-finite, duplicates being summed in
+ * the order given. An InputError, with the position for callers (such as
+ * the Matrix Market reader) that name it in their own numbering.
+ * @internal
+ */
+export class DuplicateSumError extends InputError {
+  constructor(readonly entry: number, readonly row: number, readonly column: number, readonly sum: number) {
+    super(`entry ${entry} (row ${row}, column ${column}): summed with the earlier entries at (${row}, ${column}) it gives ${sum}, which is not finite`);
+  }
+}
+
 function checkDimension(name: string, v: number): void {
   if (!Number.isInteger(v) || v < 0 || v > 0x7fffffff) throw new InputError(`${name} = ${v} is not a valid dimension`);
 }
@@ -220,8 +234,10 @@ function sumSortedDuplicates(
     const start = q;
     for (let t = colPtr[j]; t < colPtr[j + 1]; t++) {
       const k = order[t], i = rows[k];
-      if (q > start && outIdx[q - 1] === i) outVal[q - 1] += values[k];
-      else { outIdx[q] = i; outVal[q] = values[k]; q++; }
+      if (q > start && outIdx[q - 1] === i) {
+        outVal[q - 1] += values[k];
+        if (!Number.isFinite(outVal[q - 1])) throw new DuplicateSumError(k, i, j, outVal[q - 1]);
+      } else { outIdx[q] = i; outVal[q] = values[k]; q++; }
     }
     outPtr[j + 1] = q;
   }
