@@ -163,6 +163,22 @@ describe("septum solve", () => {
     }
   });
 
+  it("--rhs from a symmetric coordinate file uses both triangles (the format stores only the lower one)", () => {
+    // B = [[1, 2, 0], [2, 0, 5], [0, 5, 3]] stored as its lower triangle; each column of the solution must satisfy A·x = B(:, c).
+    file("bsym.mtx", "%%MatrixMarket matrix coordinate real symmetric\n3 3 4\n1 1 1\n2 1 2\n3 2 5\n3 3 3\n");
+    expect(run(["solve", file("a3s.mtx", SPD3), "--rhs", "bsym.mtx", "-o", "out/xsym.mtx", "--quiet"]).code).toBe(0);
+    const x = readMatrixMarket(readFileSync(join(dir, "out/xsym.mtx")));
+    if (x.kind !== "dense") throw new Error("expected an array file");
+    expect([x.nrows, x.ncols]).toEqual([3, 3]);
+    const A = readMatrixMarket(SPD3);
+    if (A.kind !== "sparse") throw new Error("expected a coordinate file");
+    const B = [[1, 2, 0], [2, 0, 5], [0, 5, 3]];
+    for (let c = 0; c < 3; c++) {
+      const Ax = symmetricMultiply(A.matrix, x.values.subarray(3 * c, 3 * c + 3));
+      for (let i = 0; i < 3; i++) expect(Math.abs(Ax[i] - B[i][c])).toBeLessThan(1e-14 * 16); // tridiag(−1, 4, −1): cond < 3 (closed form)
+    }
+  });
+
   it("a quasi-definite saddle point: Cholesky refuses with a hint, --method ldlt solves it", () => {
     expect(run(["generate", "saddle2d", "10", "-o", "s10.mtx", "--quiet"]).code).toBe(0);
     expectOneLineError(run(["solve", "s10.mtx"]), 1, "s10.mtx: the matrix is not positive definite", "try --method ldlt");

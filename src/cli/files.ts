@@ -51,7 +51,10 @@ export function readMatrixFile(io: CliIO, path: string): SparseMatrix {
   return A;
 }
 
-/** Right-hand sides (n × k, column-major) from an `array` or `coordinate` file. */
+/**
+ * Right-hand sides (n × k, column-major) from an `array` or `coordinate` file;
+ * a symmetric coordinate file stores one triangle and stands for both.
+ */
 export function readRhsFile(io: CliIO, path: string, n: number): { values: Float64Array; columns: number } {
   const contents = readMarketFile(io, path);
   const rows = contents.kind === "dense" ? contents.nrows : contents.matrix.nrows;
@@ -61,7 +64,13 @@ export function readRhsFile(io: CliIO, path: string, n: number): { values: Float
   if (contents.kind === "dense") return { values: contents.values, columns: cols };
   const values = new Float64Array(n * cols);
   const M = contents.matrix;
-  for (let j = 0; j < cols; j++) for (let p = M.colPtr[j]; p < M.colPtr[j + 1]; p++) values[j * n + M.rowIdx[p]] = M.values[p];
+  for (let j = 0; j < cols; j++) {
+    for (let p = M.colPtr[j]; p < M.colPtr[j + 1]; p++) {
+      const i = M.rowIdx[p];
+      values[j * n + i] = M.values[p];
+      if (contents.symmetric) values[i * n + j] = M.values[p]; // square by the reader's check
+    }
+  }
   return { values, columns: cols };
 }
 
