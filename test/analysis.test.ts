@@ -80,6 +80,13 @@ describe("analyze", () => {
     expect(() => analyze(A, { ordering: [0, 1.5, 2, 3] })).toThrow(/ordering\[1\] = 1.5/);
     expect(() => analyze(A, { ordering: "fastest" as never })).toThrow(/unknown ordering "fastest"/);
     expect(() => analyze(SparseMatrix.fromDense([[1, 2]]))).toThrow(/square/);
+    // Plain-array entries beyond 32 bits are refused before the Int32Array copy, which would wrap 2^32 to 0.
+    expect(() => analyze(A, { ordering: [2 ** 32, 1, 2, 3] })).toThrow(/ordering\[0\] = 4294967296 is out of range 0..3/);
+    expect(() => analyze(A, { ordering: Uint32Array.from([3, 2, 1, 2 ** 32 - 1]) })).toThrow(/ordering\[3\] = 4294967295 is out of range 0..3/);
+    // Coordinates are checked whatever the ordering (here the default, minimum degree for n ≤ 200).
+    expect(() => analyze(A, { coordinates: new Float64Array(5) })).toThrow(/coordinates has length 5; expected 2·n = 8/);
+    expect(() => analyze(A, { coordinates: new Float64Array(8).fill(NaN), ordering: "natural" })).toThrow(/coordinates\[0\] \(vertex 0, axis 0\) is not finite/);
+    expect(() => analyze(A, { coordinateMode: "exact" as never })).toThrow(InputError);
     const ac = new AbortController();
     ac.abort();
     expect(() => analyze(A, { signal: ac.signal })).toThrow(AbortedError);

@@ -70,6 +70,12 @@ describe("computeOrdering", () => {
     const bad = new Float64Array(2 * g.n);
     bad[7] = Number.POSITIVE_INFINITY;
     expect(() => computeOrdering(g, { ordering: "nested-dissection", coordinates: bad })).toThrow(/coordinates\[7\] \(vertex 3, axis 1\)/);
+    // Checked for every ordering, as threads are: an ordering that ignores them does not hide the mistake.
+    for (const ordering of ["minimum-degree", "reverse-cuthill-mckee", "natural"] as const) {
+      expect(() => computeOrdering(g, { ordering, coordinates: new Float64Array(5) })).toThrow(/coordinates has length 5/);
+      expect(() => computeOrdering(g, { ordering, coordinates: bad })).toThrow(/coordinates\[7\] \(vertex 3, axis 1\)/);
+      expect(() => computeOrdering(g, { ordering, coordinateMode: "exact" as never })).toThrow(/coordinateMode must be/);
+    }
   });
 
   it("a malformed graph given to nested dissection is an InputError, not a crash deep in the dissection", () => {

@@ -37,6 +37,7 @@ export interface OrderingOptions {
    * With coordinates: "refine" (default) refines each coordinate cut and keeps
    * the lighter of it and the multilevel separator; "plain" uses the coordinate
    * cut's boundary as is (fastest); "ignore" disregards the coordinates.
+   * Both are checked for every ordering.
    */
   coordinateMode?: "refine" | "plain" | "ignore";
   /** Checked between pieces of the dissection; an aborted signal stops the work with AbortedError. */
@@ -79,11 +80,18 @@ export function computeOrdering(g: Graph, options: OrderingOptions = {}): Orderi
   if (t !== undefined && !(Number.isInteger(t) && t >= 1 && t <= MAX_THREADS)) {
     throw new InputError(`threads must be an integer in 1..${MAX_THREADS}, got ${String(t)}`);
   }
+  // Coordinates and their mode are checked whatever the ordering, as threads are: a caller's mistake
+  // should not pass unnoticed just because this ordering (or this size's default) ignores them.
+  const coordinates = options.coordinates === undefined ? undefined : validateCoordinates(options.coordinates, n);
+  const mode = options.coordinateMode;
+  if (mode !== undefined && mode !== "refine" && mode !== "plain" && mode !== "ignore") {
+    throw new InputError(`coordinateMode must be "refine", "plain" or "ignore", got ${String(mode)}`);
+  }
   let result: OrderingResult;
   if (choice instanceof Int32Array) result = { permutation: validatePermutation(choice, n), name: "user" };
   else if (choice === "natural") result = { permutation: identity(n), name: choice };
   else if (choice === "minimum-degree") result = { permutation: minimumDegree(g), name: choice };
-  else if (choice === "nested-dissection") result = { ...dissect(g, options), name: choice };
+  else if (choice === "nested-dissection") result = { ...dissect(g, options, coordinates), name: choice };
   else if (choice === "reverse-cuthill-mckee") result = { permutation: reverseCuthillMcKee(g), name: choice };
   else throw new InputError(`unknown ordering "${String(choice)}"`);
   options.onProgress?.(1);
@@ -96,14 +104,9 @@ function identity(n: number): Int32Array {
   return p;
 }
 
-/** Nested dissection, on the compressed graph when compression pays. */
-function dissect(g: Graph, options: OrderingOptions): OrderingResult {
+/** Nested dissection, on the compressed graph when compression pays; `coordinates` already validated. */
+function dissect(g: Graph, options: OrderingOptions, coordinates: Coordinates | undefined): OrderingResult {
   checkGraph(g, "nestedDissection");
-  const coordinates = options.coordinates ? validateCoordinates(options.coordinates, g.n) : undefined;
-  const mode = options.coordinateMode;
-  if (mode !== undefined && mode !== "refine" && mode !== "plain" && mode !== "ignore") {
-    throw new InputError(`coordinateMode must be "refine", "plain" or "ignore", got ${String(mode)}`);
-  }
   const c = g.n > DISSECTION_THRESHOLD ? compressIfSmaller(g, COMPRESSION_RATIO) : null;
   // leaves: halo minimum degree (the default leaf ordering of nestedDissection)
   const common = {

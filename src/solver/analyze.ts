@@ -36,7 +36,7 @@ export interface AnalyzeOptions {
   ordering?: OrderingName | Int32Array | ArrayLike<number>;
   /** Seed of the randomized parts of nested dissection (deterministic for a given seed). Default 1. */
   seed?: number;
-  /** Node coordinates for nested dissection: 2 or 3 values per row/column of A. */
+  /** Node coordinates for nested dissection: 2 or 3 values per row/column of A (checked for every ordering). */
   coordinates?: Float64Array;
   /**
    * How nested dissection uses `coordinates`: "refine" (default) refines each
@@ -65,7 +65,7 @@ const NAMES: readonly string[] = ORDERING_NAMES;
 export function analyze(A: SparseMatrix, options: AnalyzeOptions = {}): Analysis {
   requireSquare(A);
   const { signal, onProgress } = options;
-  const choice = orderingChoice(options.ordering);
+  const choice = orderingChoice(options.ordering, A.ncols);
   checkAbort(signal);
   const graph = adjacencyGraph(A);
   const t0 = now();
@@ -130,7 +130,7 @@ function defaultOrdering(graph: Graph, common: OrderingOptions, onProgress: Anal
   return countFill(graph, md.permutation).flops < countFill(graph, nd.permutation).flops ? md : nd;
 }
 
-function orderingChoice(o: AnalyzeOptions["ordering"]): OrderingChoice | undefined {
+function orderingChoice(o: AnalyzeOptions["ordering"], n: number): OrderingChoice | undefined {
   if (o === undefined) return undefined;
   if (typeof o === "string") {
     if (!NAMES.includes(o)) throw new InputError(`unknown ordering "${o}"; expected one of ${NAMES.join(", ")} or a permutation`);
@@ -142,6 +142,8 @@ function orderingChoice(o: AnalyzeOptions["ordering"]): OrderingChoice | undefin
     const p = new Int32Array(a.length);
     for (let k = 0; k < a.length; k++) {
       if (!Number.isInteger(a[k])) throw new InputError(`ordering[${k}] = ${a[k]} is not an integer index`);
+      // Checked before the Int32Array copy, which would wrap 2^32 + 1 to 1.
+      if (a[k] < 0 || a[k] >= n) throw new InputError(`ordering[${k}] = ${a[k]} is out of range 0..${n - 1}`);
       p[k] = a[k];
     }
     return p;
