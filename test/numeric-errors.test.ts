@@ -158,5 +158,11 @@ describe("bad input", () => {
     expect(() => F.solve(b)).toThrow(/entry 3/);
     expect(() => factorize(analyse(A), A, { method: "lu" as never })).toThrow(InputError);
     expect(() => factorize(analyse(A), A, { method: "ldlt", pivotTolerance: -1 })).toThrow(InputError);
+    // A refinement request that is not true, false or a count >= 0 used to mean silently no refinement.
+    const ones = new Float64Array(10).fill(1);
+    expect(() => F.solveWithInfo(ones, { refine: -1 })).toThrow(/refine must be true, false or a number of steps >= 0, got -1/);
+    expect(() => F.solveWithInfo(ones, { refine: Number.NaN })).toThrow(InputError);
+    expect(() => F.solve(ones, { refine: "yes" as never })).toThrow(/got "yes"/);
+    expect(F.solveWithInfo(ones, { refine: 0 }).refinementSteps).toBe(0);
   });
 });

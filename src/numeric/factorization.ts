@@ -233,13 +233,19 @@ export class Factorization {
    */
   solve(b: Float64Array | number[], options: SolveOptions = {}): Float64Array {
     this.usable();
-    if (options.refine ?? this.autoRefine()) return this.solveWithInfo(b, options).x;
+    if (this.refineSteps(options)) return this.solveWithInfo(b, options).x;
     return this.solveInPlace(Float64Array.from(b)); // solveInPlace checks the right-hand side
   }
 
-  /** The default of `refine`: refinement when the growth puts the backward error well above ε. */
-  private autoRefine(): boolean {
-    return this.growth > AUTO_REFINE_GROWTH;
+  /**
+   * `options.refine` after checking it (true, false or a number of steps >= 0); its default
+   * is refinement when the growth puts the backward error well above ε.
+   */
+  private refineSteps(options: SolveOptions): number | boolean {
+    const r = options.refine;
+    if (r === undefined) return this.growth > AUTO_REFINE_GROWTH;
+    if (typeof r === "boolean" || (typeof r === "number" && r >= 0)) return r;
+    throw new InputError(`refine must be true, false or a number of steps >= 0, got ${typeof r === "string" ? `"${r}"` : String(r)}`);
   }
 
   /** Solve A·x = b overwriting b (length n or n×k column-major) with x; returns b. The plain sweeps: never refines. */
@@ -263,7 +269,7 @@ export class Factorization {
     this.usable();
     const rhs = Float64Array.from(b);
     this.checkRhs(rhs);
-    return refineSolve(this.matrix as SparseMatrix, this.normInf, rhs, (v) => this.solveInPlace(v), options.refine ?? this.autoRefine());
+    return refineSolve(this.matrix as SparseMatrix, this.normInf, rhs, (v) => this.solveInPlace(v), this.refineSteps(options));
   }
 
   /** Number of right-hand sides in b, after checking its length and values. */

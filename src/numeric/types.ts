@@ -47,7 +47,8 @@ export interface SolveOptions {
    * (stopping early once the backward error reaches ε), or `true` for up to
    * 10 steps while each step at least halves the backward error. Default:
    * `true` for an L·D·Lᵀ factorization whose growth exceeds 16 (see
-   * FactorStats.growth), none otherwise.
+   * FactorStats.growth), none otherwise. Anything else (a negative count,
+   * NaN, a string) is an InputError.
    */
   refine?: number | boolean;
 }
