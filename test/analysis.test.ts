@@ -87,9 +87,20 @@ describe("analyze", () => {
     expect(() => analyze(A, { coordinates: new Float64Array(5) })).toThrow(/coordinates has length 5; expected 2·n = 8/);
     expect(() => analyze(A, { coordinates: new Float64Array(8).fill(NaN), ordering: "natural" })).toThrow(/coordinates\[0\] \(vertex 0, axis 0\) is not finite/);
     expect(() => analyze(A, { coordinateMode: "exact" as never })).toThrow(InputError);
+    // Amalgamation bounds: NaN used to switch merging off silently, a fraction above 1 to merge everything.
+    expect(() => analyze(A, { amalgamation: { smallColumns: Number.NaN } })).toThrow(/amalgamation.smallColumns must be a number in 0..Infinity, got NaN/);
+    expect(() => analyze(A, { amalgamation: { largeZeroFraction: 2 } })).toThrow(/amalgamation.largeZeroFraction must be a number in 0..1, got 2/);
+    expect(() => analyze(A, { amalgamation: "none" as never })).toThrow(InputError);
     const ac = new AbortController();
     ac.abort();
     expect(() => analyze(A, { signal: ac.signal })).toThrow(AbortedError);
+  });
+
+  it("an amalgamation bound left undefined keeps its default", () => {
+    const A = grid2d(20);
+    const plain = analyze(A, { ordering: "nested-dissection" }).stats;
+    const spread = analyze(A, { ordering: "nested-dissection", amalgamation: { smallColumns: undefined, smallZeroFraction: undefined } }).stats;
+    expect([spread.supernodes, spread.nnzL]).toEqual([plain.supernodes, plain.nnzL]);
   });
 
   it("handles n = 0, n = 1, diagonal and disconnected matrices", () => {

@@ -51,7 +51,7 @@ export interface AnalyzeOptions {
    * {@link OrderingOptions.threads}. The ordering does not depend on it.
    */
   threads?: number;
-  /** Bounds on relaxed supernode amalgamation, or false to keep fundamental supernodes. */
+  /** Bounds on relaxed supernode amalgamation (numbers >= 0, zero fractions at most 1), or false to keep fundamental supernodes. */
   amalgamation?: AmalgamationOptions | false;
   /** Called as work proceeds. */
   onProgress?: (progress: Progress) => void;

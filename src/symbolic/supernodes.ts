@@ -11,6 +11,7 @@
  * a new column order (still a topological order of the elimination tree, so
  * the fill is unchanged) in which every merged supernode is contiguous.
  */
+import { InputError } from "../errors.js";
 import { invertPermutation, postorder } from "./etree.js";
 
 /** Bounds for relaxed amalgamation. */
@@ -81,8 +82,30 @@ export function supernodePartition(
   }
   const rep = new Int32Array(ns);
   for (let s = 0; s < ns; s++) rep[s] = s;
-  if (options !== false) amalgamate(sparent, ncols, nrows, zeros, rep, { ...DEFAULTS, ...options });
+  if (options !== false) amalgamate(sparent, ncols, nrows, zeros, rep, amalgamationBounds(options));
   return mergedPostorder(n, fstart, sparent, nrows, rep);
+}
+
+/**
+ * The caller's bounds over the defaults (a key left undefined keeps its
+ * default); InputError naming a bound that is not a number >= 0, or a zero
+ * fraction above 1.
+ */
+function amalgamationBounds(options: AmalgamationOptions): Required<AmalgamationOptions> {
+  if (typeof options !== "object" || options === null) {
+    throw new InputError(`amalgamation must be an object of bounds or false, got ${String(options)}`);
+  }
+  const o = { ...DEFAULTS };
+  for (const key of Object.keys(DEFAULTS) as (keyof AmalgamationOptions)[]) {
+    const v = options[key];
+    if (v === undefined) continue;
+    const limit = key.endsWith("Fraction") ? 1 : Infinity;
+    if (typeof v !== "number" || !(v >= 0 && v <= limit)) {
+      throw new InputError(`amalgamation.${key} must be a number in 0..${limit}, got ${String(v)}`);
+    }
+    o[key] = v;
+  }
+  return o;
 }
 
 /** Greedy merging of children into parents, children first (supernodes are in postorder). */
