@@ -12,6 +12,7 @@ import {
 import { grid2d } from "../src/generate/grids.js";
 import { SparseMatrix } from "../src/matrix/sparse.js";
 import { factorize } from "../src/numeric/index.js";
+import { analyze } from "../src/solver/analyze.js";
 import { analyse, asFull, randomPermutation, randomSpd } from "./helpers/numeric.js";
 
 /** SPD matrix of order n with A(q,q) replaced by `d` and q decoupled from everything. */
@@ -164,5 +165,16 @@ describe("bad input", () => {
     expect(() => F.solveWithInfo(ones, { refine: Number.NaN })).toThrow(InputError);
     expect(() => F.solve(ones, { refine: "yes" as never })).toThrow(/got "yes"/);
     expect(F.solveWithInfo(ones, { refine: 0 }).refinementSteps).toBe(0);
+  });
+
+  it("wrongly typed arguments: a matrix or right-hand side that is not one is an InputError, not a TypeError", () => {
+    const A = randomSpd(6, 0.4, 1);
+    const F = factorize(analyse(A), A);
+    expect(() => F.solve(undefined as never)).toThrow(/right-hand side must be a Float64Array or an array of numbers, got undefined/);
+    expect(() => F.solveWithInfo(null as never)).toThrow(/got null/);
+    expect(() => F.solveInPlace(undefined as never)).toThrow(InputError);
+    expect(() => F.refactor(A.toDense() as never)).toThrow(/matrix must be a SparseMatrix \(SparseMatrix.fromTriplets, fromCSC or fromDense\), got an array/);
+    expect(() => F.refactor(undefined as never)).toThrow(/got undefined/);
+    expect(() => analyze({ nrows: 2, ncols: 2 } as never)).toThrow(/must be a SparseMatrix.*got another object/);
   });
 });

@@ -12,8 +12,18 @@ import { SparseMatrix } from "./sparse.js";
 /** How a square matrix stores its symmetric pattern. A diagonal matrix reports "lower". */
 export type StorageForm = "lower" | "upper" | "full";
 
-/** Throw InputError unless A is square. */
+/**
+ * Throw InputError unless A is a square SparseMatrix. The shape is checked
+ * by its fields rather than instanceof, so a matrix from the CommonJS build
+ * still passes the ES module build's check.
+ */
 export function requireSquare(A: SparseMatrix, what = "matrix"): void {
+  const m = A as unknown as Record<string, unknown> | null;
+  if (typeof m !== "object" || m === null || !(m.colPtr instanceof Int32Array) || !(m.rowIdx instanceof Int32Array)
+    || !(m.values instanceof Float64Array) || typeof m.nrows !== "number" || typeof m.ncols !== "number") {
+    const got = m === null || typeof m !== "object" ? String(m) : Array.isArray(m) ? "an array" : "another object";
+    throw new InputError(`${what} must be a SparseMatrix (SparseMatrix.fromTriplets, fromCSC or fromDense), got ${got}`);
+  }
   if (A.nrows !== A.ncols) throw new InputError(`${what} must be square, got ${A.nrows} × ${A.ncols}`);
 }
 

@@ -234,7 +234,7 @@ export class Factorization {
   solve(b: Float64Array | number[], options: SolveOptions = {}): Float64Array {
     this.usable();
     if (this.refineSteps(options)) return this.solveWithInfo(b, options).x;
-    return this.solveInPlace(Float64Array.from(b)); // solveInPlace checks the right-hand side
+    return this.solveInPlace(rhsCopy(b)); // solveInPlace checks the right-hand side
   }
 
   /**
@@ -267,13 +267,14 @@ export class Factorization {
   /** Solve with the normwise backward error reported and iterative refinement (default as in {@link solve}). */
   solveWithInfo(b: Float64Array | number[], options: SolveOptions = {}): SolveInfo {
     this.usable();
-    const rhs = Float64Array.from(b);
+    const rhs = rhsCopy(b);
     this.checkRhs(rhs);
     return refineSolve(this.matrix as SparseMatrix, this.normInf, rhs, (v) => this.solveInPlace(v), this.refineSteps(options));
   }
 
   /** Number of right-hand sides in b, after checking its length and values. */
   private checkRhs(b: ArrayLike<number>): number {
+    requireArray(b);
     const n = this.n;
     if (n === 0 ? b.length !== 0 : b.length === 0 || b.length % n !== 0) {
       throw new InputError(`right-hand side has length ${b.length}, expected n = ${n} or a multiple of it (n×k column-major)`);
@@ -317,6 +318,19 @@ export class Factorization {
       for (let j = 0; j < c; j++) f(S[st.factorPtr[s] + j * (m + 1)]);
     }
   }
+}
+
+/** InputError unless the right-hand side is a typed or plain array. */
+function requireArray(b: unknown): void {
+  if (!ArrayBuffer.isView(b) && !Array.isArray(b)) {
+    throw new InputError(`right-hand side must be a Float64Array or an array of numbers, got ${b === null ? "null" : typeof b}`);
+  }
+}
+
+/** A Float64Array copy of a right-hand side (checked to be an array first). */
+function rhsCopy(b: ArrayLike<number>): Float64Array {
+  requireArray(b);
+  return Float64Array.from(b);
 }
 
 /** Largest entry of a nonnegative array (0 if empty). */
