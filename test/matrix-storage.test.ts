@@ -163,6 +163,17 @@ describe("symmetric storage forms", () => {
       const B = permuteLower(triangle(d, true), inv);
       const expected = Array.from({ length: n }, (_, i) => Array.from({ length: n }, (_, j) => (i >= j ? d[perm[i]][perm[j]] : 0)));
       expect(B.toDense()).toEqual(expected);
+      expect(permuteLower(triangle(d, false), inv).toDense()).toEqual(expected); // the upper triangle stands for A as well
     }));
+  });
+
+  it("permuteLower refuses both triangles and an inverse that is not a permutation (they gave a malformed matrix)", () => {
+    const lower = SparseMatrix.fromDense([[4, 0, 0], [1, 4, 0], [0, 1, 4]]);
+    expect(() => permuteLower(lower, Int32Array.from([5, 0, 1]))).toThrow(/inverse\[0\] = 5 is out of range 0..2/);
+    expect(() => permuteLower(lower, Int32Array.from([1, 0, 1]))).toThrow(/inverse\[2\] = 1 repeats inverse\[0\]/);
+    expect(() => permuteLower(lower, Int32Array.from([1, 0]))).toThrow(/inverse has length 2, expected n = 3/);
+    const full = SparseMatrix.fromDense([[4, 1, 0], [1, 4, 1], [0, 1, 4]]);
+    expect(() => permuteLower(full, Int32Array.from([2, 1, 0]))).toThrow(InputError);
+    expect(() => permuteLower(full, Int32Array.from([2, 1, 0]))).toThrow(/got both; pass lowerTriangle\(A\)/);
   });
 });

@@ -126,8 +126,12 @@ export function requireSymmetric(A: SparseMatrix): void {
 /**
  * Lower triangle of P·A·Pᵀ from the lower triangle L of A, where
  * inverse[old] = new. Entry (i, j) moves to (max, min) of (inverse[i], inverse[j]).
+ * L may hold the upper triangle instead, not both (each pair would land twice);
+ * InputError for that, or for an `inverse` that is not a permutation of 0..n−1.
  */
 export function permuteLower(L: SparseMatrix, inverse: Int32Array): SparseMatrix {
+  if (storageForm(L) === "full") throw new InputError("permuteLower needs one triangle of A, got both; pass lowerTriangle(A)");
+  checkInverse(inverse, L.ncols);
   const n = L.ncols, { colPtr, rowIdx, values } = L;
   const ptr = new Int32Array(n + 1);
   for (let j = 0; j < n; j++) {
@@ -163,6 +167,19 @@ export function permuteLower(L: SparseMatrix, inverse: Int32Array): SparseMatrix
     }
   }
   return SparseMatrix.trusted(n, n, ptr, idx, val);
+}
+
+/** InputError naming the first entry of `inverse` that makes it no permutation of 0..n−1. */
+function checkInverse(inverse: Int32Array, n: number): void {
+  if (!(inverse instanceof Int32Array)) throw new InputError("inverse must be an Int32Array");
+  if (inverse.length !== n) throw new InputError(`inverse has length ${inverse.length}, expected n = ${n}`);
+  const seen = new Int32Array(n).fill(-1);
+  for (let k = 0; k < n; k++) {
+    const v = inverse[k];
+    if (v < 0 || v >= n) throw new InputError(`inverse[${k}] = ${v} is out of range 0..${n - 1}`);
+    if (seen[v] !== -1) throw new InputError(`inverse[${k}] = ${v} repeats inverse[${seen[v]}]; not a permutation`);
+    seen[v] = k;
+  }
 }
 
 /**
