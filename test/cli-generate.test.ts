@@ -7,6 +7,7 @@ import { plateMesh2d } from "../src/generate/plate.js";
 import { saddle2d } from "../src/generate/saddle.js";
 import { symmetricMultiply } from "../src/matrix/symmetric.js";
 import { dense } from "./helpers/numeric.js";
+import { InputError } from "../src/errors.js";
 
 const ones = (n: number) => new Float64Array(n).fill(1);
 
@@ -80,5 +81,11 @@ describe("model problems", () => {
     const ev = new EigenvalueDecomposition(dense(saddle2d(k).matrix)).realEigenvalues;
     expect(ev.filter((v) => v > 0).length).toBe(2 * k * k);
     expect(ev.filter((v) => v < 0).length).toBe((k - 1) * (k - 1));
+  });
+
+  it("saddle2d refuses a stabilization γ that is not > 0 (the matrix would not be quasi-definite)", () => {
+    expect(() => saddle2d(4, -1)).toThrow(InputError);
+    expect(() => saddle2d(4, 0)).toThrow(/saddle2d gamma must be a finite number > 0, got 0/);
+    expect(() => saddle2d(4, Number.NaN)).toThrow(/got NaN/);
   });
 });

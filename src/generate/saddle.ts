@@ -8,11 +8,14 @@
  * every symmetric permutation (Vanderbei 1995, "Symmetric quasi-definite
  * matrices", SIAM J. Optim. 5(1)); Cholesky fails on it by design.
  */
+import { InputError } from "../errors.js";
 import { checkSize, LowerTriplets, type ModelProblem } from "./grids.js";
 
 /** Velocities on a k×k node grid (u then v), pressures on the (k−1)×(k−1) cells. */
 export function saddle2d(k: number, gamma = 1e-2): ModelProblem {
   checkSize("saddle2d size", k, 2, 3000);
+  // C = γ·I must be positive definite for the matrix to be quasi-definite, as its description says.
+  if (!(gamma > 0 && gamma < Infinity)) throw new InputError(`saddle2d gamma must be a finite number > 0, got ${gamma}`);
   const nu = k * k, np = (k - 1) * (k - 1), n = 2 * nu + np;
   const t = new LowerTriplets();
   const coordinates = new Float64Array(2 * n);
