@@ -267,7 +267,7 @@ describe("malformed files: MatrixMarketError with the 1-based line", () => {
   });
 
   it("never allocates what the text cannot hold: a huge announced count fails at the end of the text", () => {
-    const e = readError(H + "2000000000 2000000000 2000000000\n1 1 1\n");
+    const e = readError(H + "200000000 200000000 2000000000\n1 1 1\n");
     expect(e.line).toBe(3);
     expect(e.message).toContain("file ends after 1 of the 2000000000 entries");
     const d = readError("%%MatrixMarket matrix array real general\n100000 100000\n1\n");
@@ -279,6 +279,18 @@ describe("malformed files: MatrixMarketError with the 1-based line", () => {
     const e = readError(H + "3000000000 1 0\n");
     expect(e.line).toBe(2);
     expect(e.message).toContain("larger than 2147483647");
+  });
+
+  it("refuses, on the size line and before allocating, dimensions beyond what a process can index (2^28)", () => {
+    // 2147483647 columns would need 8 GiB of column pointers for a 60-byte file (it used to end the process)
+    const e = readError(H + "1 2147483647 1\n1 1 1\n");
+    expect(e.line).toBe(2);
+    expect(e.message).toContain("2147483647 columns exceed the largest dimension septum handles, 268435456");
+    const a = readError("%%MatrixMarket matrix array real general\n268435457 1\n1\n");
+    expect(a.line).toBe(2);
+    expect(a.message).toContain("268435457 rows exceed");
+    // the size line's entry count is not a dimension: a count above 2^28 reads on to the end of the text
+    expect(readError(H + "2 2 300000000\n1 1 1\n").message).toContain("file ends after 1 of the 300000000 entries");
   });
 });
 

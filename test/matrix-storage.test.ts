@@ -6,7 +6,7 @@ import {
   lowerTriangle, permuteLower, storageForm, symmetricMultiply, symmetricNormInf,
 } from "../src/matrix/symmetric.js";
 import { adjacencyGraph } from "../src/graph/adjacency.js";
-import { InputError, NotSymmetricError } from "../src/errors.js";
+import { CapacityError, InputError, NotSymmetricError } from "../src/errors.js";
 import { planeStrainFull } from "./helpers/elements.js";
 
 /** Random symmetric matrix as a dense array (n ≤ 12), entries small integers, density ~30%. */
@@ -57,6 +57,15 @@ describe("SparseMatrix construction", () => {
     expect(A.values).toBe(values);
     const B = SparseMatrix.fromCSC(2, 2, [0, 3, 3], [1, 0, 1], [1, 2, 3]);
     expect(B.toDense()).toEqual([[2, 0], [4, 0]]);
+  });
+
+  it("refuses a dimension beyond 2^28 with CapacityError before allocating anything", () => {
+    // fromTriplets(2^31 − 1, 2^31 − 1, [0], [0], [1]) used to allocate 8 GiB of column pointers and end the process
+    const big = 2 ** 31 - 1;
+    expect(() => SparseMatrix.fromTriplets(big, big, [0], [0], [1])).toThrow(CapacityError);
+    expect(() => SparseMatrix.fromTriplets(5, 2 ** 28 + 1, [0], [0], [1])).toThrow(/ncols = 268435457 exceeds the largest dimension septum handles, 268435456/);
+    expect(() => SparseMatrix.fromCSC(2 ** 28 + 1, 1, Int32Array.of(0, 0), new Int32Array(0), new Float64Array(0))).toThrow(/nrows = 268435457/);
+    expect(() => SparseMatrix.fromTriplets(-1, 2, [], [], [])).toThrow(InputError);
   });
 
   it("rejects bad input with errors naming the entry", () => {

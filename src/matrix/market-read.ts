@@ -10,7 +10,7 @@
  */
 
 import { InputError, MatrixMarketError } from "../errors.js";
-import { DuplicateSumError, SparseMatrix } from "./sparse.js";
+import { DuplicateSumError, MAX_DIMENSION, SparseMatrix } from "./sparse.js";
 import { Cursor, decodeText, lineEnd, scanInteger, scanReal } from "./market-scan.js";
 
 /** The value field of a Matrix Market file that septum reads. */
@@ -138,6 +138,9 @@ function readSizeLine(c: Cursor, count: number, what: string): number[] {
     const v = scanInteger(c);
     if (!(v >= 0)) c.fail(`size line: '${token}' is not a non-negative integer (expected ${what})`);
     if (v > 0x7fffffff) c.fail(`size line: ${token} is larger than 2147483647`);
+    if (out.length < 2 && v > MAX_DIMENSION) {
+      c.fail(`size line: ${token} ${out.length === 0 ? "rows" : "columns"} exceed the largest dimension septum handles, ${MAX_DIMENSION}`);
+    }
     out.push(v);
   }
   if (out.length !== count) c.fail(`size line has ${out.length} field${out.length === 1 ? "" : "s"}, expected ${count} (${what})`);

@@ -5,7 +5,7 @@
  * finite-element assembly needs; it runs in O(nnz + n) with two counting
  * passes (the classic transpose-twice construction, common practice).
  */
-import { InputError } from "../errors.js";
+import { CapacityError, InputError } from "../errors.js";
 
 /** Index or value arrays accepted from callers. */
 export type IndexArray = Int32Array | Uint32Array | ArrayLike<number>;
@@ -218,8 +218,20 @@ export class DuplicateSumError extends InputError {
   }
 }
 
+/**
+ * Largest number of rows or columns (2²⁸): the column pointers alone of a
+ * larger matrix take over a GiB, and an analysis keeps a few dozen arrays of
+ * that length, beyond what a JavaScript process holds. Checked before any
+ * allocation, so a short file or call that declares a huge empty matrix is a
+ * CapacityError rather than an out-of-memory crash.
+ */
+export const MAX_DIMENSION = 2 ** 28;
+
 function checkDimension(name: string, v: number): void {
-  if (!Number.isInteger(v) || v < 0 || v > 0x7fffffff) throw new InputError(`${name} = ${v} is not a valid dimension`);
+  if (!Number.isInteger(v) || v < 0) throw new InputError(`${name} = ${v} is not a valid dimension`);
+  if (v > MAX_DIMENSION) {
+    throw new CapacityError(`${name} = ${v} exceeds the largest dimension septum handles, ${MAX_DIMENSION} (its index arrays would need ${(4 * v / 2 ** 30).toFixed(1)} GiB each)`);
+  }
 }
 
 /** Compact entries `order` (sorted by column, then row) into CSC, summing repeats. */
