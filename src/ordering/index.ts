@@ -46,8 +46,8 @@ export interface OrderingOptions {
   onProgress?: (fraction: number) => void;
   /**
    * Threads nested dissection may use, this one included. Default: up to 4 (no
-   * more than the cores) for graphs of 100,000 vertices or more (after
-   * compression), else 1. Helper threads run in Node only (worker_threads,
+   * more than the cores, a Linux cgroup CPU quota counted) for graphs of
+   * 100,000 vertices or more (after compression), else 1. Helper threads run in Node only (worker_threads,
    * with the caller blocked until they finish); elsewhere, or when they cannot
    * start, all runs on the calling thread. The ordering is the same for any
    * number of threads. An integer in 1..256 (checked for every ordering).

@@ -11,6 +11,7 @@
  * Int32Array (Atomics.wait) and takes the result with receiveMessageOnPort.
  */
 import type * as WorkerThreads from "node:worker_threads";
+import { quotaCores } from "./cores.js";
 
 type Threads = typeof WorkerThreads;
 
@@ -43,11 +44,28 @@ function builtin<T>(id: string): T | null {
   }
 }
 
-/** Cores the process may use (1 where that cannot be told). */
+/**
+ * Cores the process may use (1 where that cannot be told): Node's count,
+ * capped by a Linux cgroup CPU quota (read once per process).
+ */
 export function availableCores(): number {
   const os = builtin<typeof import("node:os")>("node:os");
   if (os === null) return 1;
-  return typeof os.availableParallelism === "function" ? os.availableParallelism() : os.cpus().length;
+  const count = typeof os.availableParallelism === "function" ? os.availableParallelism() : os.cpus().length;
+  quota ??= { cores: quotaCores(readText) };
+  return quota.cores === null ? count : Math.min(count, quota.cores);
+}
+
+let quota: { cores: number | null } | undefined;
+
+/** A small text file's contents, or null. */
+function readText(path: string): string | null {
+  const fs = builtin<typeof import("node:fs")>("node:fs");
+  try {
+    return fs === null ? null : fs.readFileSync(path, "utf8");
+  } catch {
+    return null;
+  }
 }
 
 /** The helper script built beside this bundle (dist/dissection-worker.js), or null when it is not there. */
