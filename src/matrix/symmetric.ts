@@ -7,6 +7,7 @@
  * takes norms with the symmetry implied by the storage.
  */
 import { InputError, NotSymmetricError } from "../errors.js";
+import { checkPermutation } from "./permutation.js";
 import { SparseMatrix } from "./sparse.js";
 
 /** How a square matrix stores its symmetric pattern. A diagonal matrix reports "lower". */
@@ -131,7 +132,7 @@ export function requireSymmetric(A: SparseMatrix): void {
  */
 export function permuteLower(L: SparseMatrix, inverse: Int32Array): SparseMatrix {
   if (storageForm(L) === "full") throw new InputError("permuteLower needs one triangle of A, got both; pass lowerTriangle(A)");
-  checkInverse(inverse, L.ncols);
+  checkPermutation(inverse, L.ncols, "inverse");
   const n = L.ncols, { colPtr, rowIdx, values } = L;
   const ptr = new Int32Array(n + 1);
   for (let j = 0; j < n; j++) {
@@ -167,19 +168,6 @@ export function permuteLower(L: SparseMatrix, inverse: Int32Array): SparseMatrix
     }
   }
   return SparseMatrix.trusted(n, n, ptr, idx, val);
-}
-
-/** InputError naming the first entry of `inverse` that makes it no permutation of 0..n−1. */
-function checkInverse(inverse: Int32Array, n: number): void {
-  if (!(inverse instanceof Int32Array)) throw new InputError("inverse must be an Int32Array");
-  if (inverse.length !== n) throw new InputError(`inverse has length ${inverse.length}, expected n = ${n}`);
-  const seen = new Int32Array(n).fill(-1);
-  for (let k = 0; k < n; k++) {
-    const v = inverse[k];
-    if (v < 0 || v >= n) throw new InputError(`inverse[${k}] = ${v} is out of range 0..${n - 1}`);
-    if (seen[v] !== -1) throw new InputError(`inverse[${k}] = ${v} repeats inverse[${seen[v]}]; not a permutation`);
-    seen[v] = k;
-  }
 }
 
 /**

@@ -8,6 +8,7 @@
 import { AbortedError, InputError } from "../errors.js";
 import { compressIfSmaller, expandPermutation, type CompressedGraph } from "../graph/compress.js";
 import { checkGraph, checkGraphShape } from "../graph/check.js";
+import { checkPermutation } from "../matrix/permutation.js";
 import type { Graph } from "../graph/types.js";
 import { validateCoordinates, type Coordinates } from "./coordinates.js";
 import { minimumDegree } from "./minimum-degree.js";
@@ -157,13 +158,6 @@ function expandTree(c: CompressedGraph, perm: Int32Array, t: SeparatorTree): Sep
 
 /** Checks that p is a permutation of 0..n−1; the error names the first bad entry. */
 function validatePermutation(p: Int32Array, n: number): Int32Array {
-  if (p.length !== n) throw new InputError(`ordering has length ${p.length}, expected n = ${n}`);
-  const seen = new Int32Array(n).fill(-1);
-  for (let k = 0; k < n; k++) {
-    const v = p[k];
-    if (v < 0 || v >= n) throw new InputError(`ordering[${k}] = ${v} is out of range 0..${n - 1}`);
-    if (seen[v] !== -1) throw new InputError(`ordering[${k}] = ${v} repeats ordering[${seen[v]}]; not a permutation`);
-    seen[v] = k;
-  }
+  checkPermutation(p, n, "ordering");
   return p;
 }
