@@ -4,6 +4,8 @@ import { tmpdir } from "node:os";
 import { join } from "node:path";
 import { main } from "../src/cli/main.js";
 import { VERSION } from "../src/cli/version.js";
+import { HELP, MAIN_HELP } from "../src/cli/help.js";
+import { SPECS } from "../src/cli/options.js";
 import { readMatrixMarket, writeMatrixMarket } from "../src/matrix/market.js";
 import { grid2d as grid2dLower } from "./helpers/patterns.js";
 import { powerLawLaplacian } from "./helpers/networks.js";
@@ -126,6 +128,20 @@ describe("septum: help and version", () => {
       expect(r.code).toBe(0);
       expect(r.out).toContain(`Usage: septum ${c}`);
     }
+  });
+  it("every option a command accepts is in its help (--help and --debug in the main help), and so is every alias", () => {
+    // the documentation is the help text itself: an accepted flag missing from it is undocumented
+    for (const [c, spec] of Object.entries(SPECS)) {
+      for (const [name, o] of Object.entries(spec)) {
+        const text = name === "help" || name === "debug" ? MAIN_HELP : HELP[c];
+        expect(text, `${c} --${name}`).toMatch(new RegExp(`--${name}\\b`));
+        if (o.short) expect(text, `${c} -${o.short}`).toMatch(new RegExp(`(^|[\\s\\[])-${o.short}\\b`, "m"));
+      }
+    }
+    expect(run(["-v"]).out.trim()).toBe(VERSION);
+    expect(MAIN_HELP).toMatch(/-v, --version/);
+    expect(run(["help", "solve"]).out).toBe(HELP.solve);
+    expect(MAIN_HELP).toContain("septum help solve");
   });
 });
 

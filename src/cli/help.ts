@@ -8,12 +8,14 @@ Commands:
   solve A.mtx       order, analyze, factor and solve A x = b; print a summary
   analyze A.mtx     ordering and symbolic statistics only (no numeric work)
   report A.mtx      write a self-contained HTML page showing the block structure
-  generate KIND N   write a model problem (grids, elasticity, meshes, graphs)
+  generate KIND N   write a model problem (grids, elasticity, meshes, graphs,
+                    a saddle point)
   demo              cooling-plate heat conduction demo (illustrative scenario)
 
 Options:
-  -h, --help        help for septum or for one command (septum solve --help)
-  --version         print the version
+  -h, --help        help for septum or for one command (septum solve --help,
+                    or septum help solve)
+  -v, --version     print the version
   -q, --quiet       no progress line
   --debug           show stack traces on errors
 
@@ -78,7 +80,8 @@ ${ORDERING_TEXT}
 `,
   generate: `Usage: septum generate KIND N [options] -o A.mtx
 
-Writes a symmetric positive definite model problem as a Matrix Market file.
+Writes a symmetric model problem as a Matrix Market file: positive definite,
+except saddle2d, which is quasi-definite.
 
 Kinds:
   grid2d K          Laplacian on a K×K grid, 5-point (or --stencil 9: bilinear elements)
@@ -95,8 +98,9 @@ Kinds:
 
 Options:
   -o, --output FILE the Matrix Market file to write (required)
+  -q, --quiet       no 'wrote' line
 `,
-  demo: `Usage: septum demo [-o DIR]
+  demo: `Usage: septum demo [-o DIR] [--size H]
 
 Steady heat conduction in a thin aluminium cooling plate under a battery module
 (an illustrative scenario with invented data): meshes the plate, assembles P1

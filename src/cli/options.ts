@@ -22,7 +22,8 @@ const COMMON: Spec = {
   debug: { type: "boolean" },
 };
 
-const SPECS: Record<string, Spec> = {
+/** The options each sub-command accepts (exported so a test can hold the help texts to them). */
+export const SPECS: Record<string, Spec> = {
   solve: { ...COMMON, rhs: { type: "string" }, output: { type: "string", short: "o" }, ordering: { type: "string" }, method: { type: "string" }, json: { type: "boolean" }, seed: { type: "string" }, threads: { type: "string" }, kernels: { type: "string" } },
   analyze: { ...COMMON, ordering: { type: "string" }, method: { type: "string" }, json: { type: "boolean" }, compare: { type: "boolean" }, seed: { type: "string" }, threads: { type: "string" } },
   report: { ...COMMON, output: { type: "string", short: "o" }, ordering: { type: "string" }, seed: { type: "string" }, threads: { type: "string" } },
