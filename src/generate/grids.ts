@@ -11,7 +11,7 @@
 import { InputError } from "../errors.js";
 import { SparseMatrix } from "../matrix/sparse.js";
 
-/** A generated model problem: the lower triangle of an SPD matrix, plus node coordinates (dim per unknown). */
+/** A generated model problem: the lower triangle of a symmetric matrix (positive definite; quasi-definite for saddle2d), plus node coordinates (dim per unknown). */
 export interface ModelProblem {
   readonly name: string;
   readonly description: string;

@@ -39,7 +39,7 @@ export interface RefactorOptions {
 
 /**
  * Numeric factorization of P·A·Pᵀ = L·Lᵀ (Cholesky) or L·D·Lᵀ for the
- * structure of an analysis. Create it with `factorize` (or `analysis.factor`).
+ * structure of an analysis. Create it with `analysis.factor`.
  */
 export class Factorization {
   /** "cholesky" or "ldlt". */

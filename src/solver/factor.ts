@@ -24,7 +24,7 @@ export interface FactorizeOptions {
   kernels?: "auto" | "wasm" | "js" | DenseKernels;
   /** L·D·Lᵀ: a pivot d_j with |d_j| ≤ pivotTolerance · max_i |a_ij| (its own row's largest entry) is an error. Default 1e-12. */
   pivotTolerance?: number;
-  /** Called with the fraction of factorization flops done. */
+  /** Called with `{ phase: "factor", fraction }`, the fraction of the factorization flops done. */
   onProgress?: (progress: Progress) => void;
   /** Stops the factorization with AbortedError; the Factorization is then unusable until a successful refactor. */
   signal?: AbortSignal;
