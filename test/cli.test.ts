@@ -248,7 +248,7 @@ describe("septum solve: a singular matrix is flagged", () => {
     expect(JSON.parse(json.out).smallestPivotColumn).toBe(10);
     expect(json.err).toContain("septum: warning:");
     // The grounded 5-point grid: every pivot is a Schur complement diagonal, at least λ_min(A) = 8·sin²(π/26) (closed
-    // form for k = 12; S⁻¹ is a principal block of A⁻¹), over row maxima 4: ratios ≥ 2·sin²(π/26) ≈ 0.029.
+    // form for k = 12; S⁻¹ is a principal block of A⁻¹), over diagonal entries 4: ratios ≥ 2·sin²(π/26) ≈ 0.029.
     expect(run(["generate", "grid2d", "12", "-o", "grid12.mtx", "--quiet"]).code).toBe(0);
     const grid = run(["solve", "grid12.mtx", "--json"]);
     expect(grid.err).toBe("");

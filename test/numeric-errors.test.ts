@@ -62,12 +62,12 @@ describe("pivot breakdown names the original column", () => {
     }
   });
 
-  it("L·D·Lᵀ: a zero pivot and a tiny pivot (relative to its row's largest entry) stop it with the original column", () => {
+  it("L·D·Lᵀ: a zero pivot and a tiny pivot (relative to its diagonal entry) stop it with the original column", () => {
     const Z = withIsolated(30, 12, 0);
     const e = caught(() => factorize(analyse(Z, randomPermutation(30, 9)), Z, { method: "ldlt" })) as NotPositiveDefiniteError;
     expect(e).toBeInstanceOf(NotPositiveDefiniteError);
     expect(e.column).toBe(12);
-    // [[1, 1], [1, 1 + 1e-14]]: second pivot 1e-14 (to rounding) ≤ 1e-12 · (largest entry of row 1 = 1 + 1e-14).
+    // [[1, 1], [1, 1 + 1e-14]]: second pivot 1e-14 (to rounding) ≤ 1e-12 · (a₁₁ = 1 + 1e-14).
     const T = SparseMatrix.fromTriplets(2, 2, [0, 1, 1], [0, 0, 1], [1, 1, 1 + 1e-14]);
     const t = caught(() => factorize(analyse(T), T, { method: "ldlt" })) as NotPositiveDefiniteError;
     expect(t).toBeInstanceOf(NotPositiveDefiniteError);

@@ -1,6 +1,6 @@
 /**
- * FactorStats.smallestPivot = min_j |p_j| / r_j (p_j = L_jj² or d_j, r_j the
- * largest |a_jk| of row j), and smallestPivotColumn, the column (original
+ * FactorStats.smallestPivot = min_j |p_j| / r_j (p_j = L_jj² or d_j, r_j =
+ * |a_jj|), and smallestPivotColumn, the column (original
  * numbering) where it occurs. Outside references: pivots worked by hand on 2×2
  * and 3×3 matrices; the closed-form Cholesky pivots (k+1)/k of tridiag(−1, 2, −1)
  * (Golub & Van Loan, Matrix Computations, §4.3, common practice); a connected
@@ -44,13 +44,13 @@ function path(n: number, ground = 0): SparseMatrix {
 const reversed = (n: number) => Int32Array.from({ length: n }, (_, i) => n - 1 - i);
 
 describe("smallest relative pivot", () => {
-  it("[[2, −1], [−1, 2]]: pivots 2 and 3/2 over row maxima 2 and 2 give 3/4, for L·Lᵀ and L·D·Lᵀ (by hand)", () => {
+  it("[[2, −1], [−1, 2]]: pivots 2 and 3/2 over diagonal entries 2 and 2 give 3/4, for L·Lᵀ and L·D·Lᵀ (by hand)", () => {
     const A = lower([[2, -1], [-1, 2]]);
     expect(factorize(analyse(A), A).stats.smallestPivot).toBeCloseTo(3 / 4, 15);
     expect(factorize(analyse(A), A, { method: "ldlt" }).stats.smallestPivot).toBeCloseTo(3 / 4, 15);
   });
 
-  it("L·D·Lᵀ of the quasi-definite [[4, 1, 1], [1, 2, 1], [1, 1, −1]]: d = 4, 7/4, −11/7 over rows 4, 2, 1 give 7/8 (by hand)", () => {
+  it("L·D·Lᵀ of the quasi-definite [[4, 1, 1], [1, 2, 1], [1, 1, −1]]: d = 4, 7/4, −11/7 over |a_jj| = 4, 2, 1 give 7/8 (by hand)", () => {
     // d1 = 4; d2 = 2 − 1/4 = 7/4; l32 = (1 − 1/4)/(7/4) = 3/7; d3 = −1 − 4·(1/4)² − (7/4)·(3/7)² = −11/7.
     // Ratios 1, 7/8, 11/7: the smallest is the second pivot's.
     const A = lower([[4, 1, 1], [1, 2, 1], [1, 1, -1]]);
@@ -63,7 +63,7 @@ describe("smallest relative pivot", () => {
     expect(G.stats.smallestPivot).toBeCloseTo(1, 15);
   });
 
-  it("grounded path tridiag(−1, 2, −1): pivots (k+1)/k over row maximum 2, smallest (n+1)/(2n) (closed form)", () => {
+  it("grounded path tridiag(−1, 2, −1): pivots (k+1)/k over diagonal entry 2, smallest (n+1)/(2n) (closed form)", () => {
     for (const n of [1, 2, 7, 50]) {
       const A = laplacian1d(n);
       expect(factorize(analyse(A), A).stats.smallestPivot).toBeCloseTo((n + 1) / (2 * n), 14);
@@ -82,7 +82,7 @@ describe("smallest relative pivot", () => {
     }
     // Grounded at node 0 by conductance 1 it is nonsingular. Eliminating nodes 0..k−1 leaves node k tied to ground by
     // the series conductance g_k = 1 / (1 + Σ_{e<k} 1/w_e) (Ohm's law), so the pivots are w_k + g_k and, last, g_{n−1}
-    // over the row maximum w_{n−2}; the earlier ratios exceed 1/2 as the weights increase (closed form).
+    // over its diagonal entry w_{n−2}; the earlier ratios exceed 1/2 as the weights increase (closed form).
     let series = 1;
     for (let e = 0; e < n - 1; e++) series += 1 / weight(e);
     const G = path(n, 1);
@@ -117,9 +117,9 @@ describe("where the smallest relative pivot is (smallestPivotColumn, 0-based, or
 
   it("a diagonal matrix with one nearly dependent 2×2 block: the column eliminated second of the pair, in the caller's numbering", () => {
     // diag(2, ·, 2, 2, ·, 2) with the block [[1, 1], [1, 1 + δ]] on columns 1 and 4, δ = 2⁻³⁰ (1 + δ exact). By hand:
-    // the diagonal columns give ratio 1 and the first of the pair gives 1 over row maximum 1 (or 1+δ over 1+δ); the
+    // the diagonal columns give ratio 1 and the first of the pair gives 1 over its diagonal 1 (or 1+δ over 1+δ); the
     // second gives δ (natural: (1+δ) − 1, column 4) or 1 − 1/(1+δ) = δ/(1+δ) (column 4 first, the pivot at column 1),
-    // over row maximum 1+δ or 1. Cancellation costs about ε/δ ≈ 2.4e-7 relative accuracy.
+    // over its diagonal 1+δ or 1. Cancellation costs about ε/δ ≈ 2.4e-7 relative accuracy.
     const delta = 2 ** -30, r = [0, 1, 2, 3, 4, 5, 4], c = [0, 1, 2, 3, 4, 5, 1], v = [2, 1, 2, 2, 1 + delta, 2, 1];
     const A = SparseMatrix.fromTriplets(6, 6, r, c, v);
     for (const [order, column, ratio] of [[undefined, 4, delta / (1 + delta)], [reversed(6), 1, delta / (1 + delta)]] as const) {

@@ -39,7 +39,7 @@ export const HELP: Record<string, string> = {
 Reads the symmetric matrix A, orders it, analyzes, factors and solves A x = b.
 Without --rhs, b = A·1, so the exact solution is all ones and the max error is
 reported too. A warning naming the column goes to stderr when the smallest
-pivot is below 1e-10 of its row's largest entry: A is singular to working
+pivot is below 1e-10 of its diagonal entry: A is singular to working
 precision (an ungrounded Laplacian, a missing constraint), and x may be
 meaningless even when the backward error is small.
 

@@ -21,8 +21,6 @@ import {
 } from "./types.js";
 import { stackSchedule, workspaceOf, type StackSchedule, type WorkspacePrediction } from "./workspace.js";
 
-const EMPTY = new Float64Array(0);
-
 /**
  * Growth ρ above which solves refine by default: the backward error of the
  * plain sweeps may then reach n·ε·ρ (growth.ts), far from Cholesky's.
@@ -61,22 +59,27 @@ export class Factorization {
   private failure: string | null = "not factored yet";
   /** ρ of the last factorization (growth.ts): 1 for Cholesky. */
   private growth = 1;
-  /** Largest |a_jk| of each row j of A in the new numbering (rowMaxima), for the pivot floors and smallestPivot. */
-  private readonly rowMax: Float64Array;
-  /** n doubles reused by every factorization: row maxima in the input numbering, then the growth sums. */
+  /** |a_jj| of each column j of A in the new numbering (statistics), the scale of pivot j (multifrontal.ts). */
+  private readonly diag: Float64Array;
+  /** L·D·Lᵀ: Σ_k l_jk²·|d_k| of each column j (new numbering), summed by the pass; with diag, the scale of pivot j. */
+  private readonly terms: Float64Array;
+  /** Largest |a_ij| of A (statistics), the denominator of the growth. */
+  private maxA = 0;
+  /** n doubles reused by every factorization: row maxima in the input numbering (for maxA). */
   private readonly scratchN: Float64Array;
   /** n doubles: row sums of |A| (rowStatistics). */
   private readonly rowSums: Float64Array;
-  /** L·D·Lᵀ pivot floors (pivotFloors), allocated on the first L·D·Lᵀ factorization. */
-  private floors: Float64Array | null = null;
+  /** n doubles: |a_ii| in the input numbering (rowStatistics). */
+  private readonly diagIn: Float64Array;
   private lastStats: FactorStats | null = null;
   /**
    * Smallest relative pivot min_j |p_j| / r_j over the diagonal of the
-   * factor, with p_j = L_jj² (Cholesky) or d_j (L·D·Lᵀ) and r_j = rowMax[j],
-   * the largest |a_jk| of row j of A (new numbering), folded in by the pass
-   * after each supernode (multifrontal.ts). A pivot is the diagonal of a
-   * Schur complement; a ratio near ε means it cancelled to rounding: A is
-   * singular or nearly so to working precision. Ratio 1 for n = 0; position
+   * factor, with p_j = L_jj² (Cholesky) or d_j (L·D·Lᵀ) and r_j the size of
+   * the terms p_j was formed from, |a_jj| (Cholesky) or max(|a_jj|,
+   * Σ_k l_jk²·|d_k|) (new numbering), folded in by the pass after each
+   * supernode (multifrontal.ts). A pivot is the diagonal of a Schur
+   * complement; a ratio near ε means it cancelled to rounding: A is singular
+   * or nearly so to working precision. Ratio 1 for n = 0; position
    * is the new-numbering column of the first pivot reaching it (-1 for n = 0).
    */
   private readonly smallest = { ratio: Infinity, position: -1 };
@@ -97,9 +100,11 @@ export class Factorization {
     this.cumulativeFlops = flopsAlongOrder(input, this.schedule.order);
     this.solveTmp = new Float64Array(largestBelow(input.structure));
     const st = input.structure;
-    this.rowMax = new Float64Array(st.n);
+    this.diag = new Float64Array(st.n);
+    this.terms = new Float64Array(method === "ldlt" ? st.n : 0);
     this.scratchN = new Float64Array(st.n);
     this.rowSums = new Float64Array(st.n);
+    this.diagIn = new Float64Array(st.n);
     this.frontWork = {
       cbOffset: new Float64Array(st.supernodeCount), local: new Int32Array(st.n), rel: new Int32Array(st.n), runEnd: new Int32Array(st.n),
     };
@@ -120,9 +125,9 @@ export class Factorization {
     const t0 = performance.now();
     try {
       this.load(A);
-      this.rowMaxima(A);
+      this.statistics(A);
       this.run(options, A.values);
-      this.growth = this.method === "ldlt" ? ldltGrowth(this.input.structure, this.kernels.view(), largest(this.rowMax), this.scratchN) : 1;
+      this.growth = this.method === "ldlt" ? ldltGrowth(this.input.structure, this.kernels.view(), this.terms, this.maxA) : 1;
     } catch (e) {
       this.failure = e instanceof Error ? `the last factorization failed: ${e.message}` : "the last factorization failed";
       throw e;
@@ -164,6 +169,7 @@ export class Factorization {
     const smallest = this.smallest;
     smallest.ratio = Infinity;
     smallest.position = -1;
+    this.terms.fill(0);
     const st = this.input.structure, w = this.workspace, cum = this.cumulativeFlops;
     const total = cum[cum.length - 1] || 1;
     let step = 0, reported = 0;
@@ -179,9 +185,9 @@ export class Factorization {
       st, kernels: this.kernels, method: this.method, order: this.schedule.order, map: this.map as ScatterMap, values,
       childPtr: this.schedule.childPtr, children: this.schedule.children,
       stackBase: w.factorDoubles, scratch: w.factorDoubles + w.stackDoubles,
-      tiny: this.method === "ldlt" ? this.pivotFloors() : EMPTY, // Cholesky stops on pivots <= 0 only
+      pivotTolerance: this.pivotTolerance, // L·D·Lᵀ only: Cholesky stops on pivots <= 0
       ...this.frontWork,
-      rowMax: this.rowMax, smallest,
+      diag: this.diag, terms: this.terms, smallest,
       between,
     });
     if (fail) throw this.pivotError(fail);
@@ -189,26 +195,14 @@ export class Factorization {
 
   /**
    * One pass over A's values (rowStatistics): rejects non-finite entries,
-   * sets ‖A‖∞ and the largest |a_jk| of each row j into rowMax in the new
+   * sets ‖A‖∞, the largest |a_ij| and |a_jj| of each column j in the new
    * numbering.
    */
-  private rowMaxima(A: SparseMatrix): void {
-    this.normInf = rowStatistics(this.map as ScatterMap, A.values, this.scratchN, this.rowSums);
-    const perm = this.input.permutation, row = this.scratchN;
-    for (let k = 0; k < this.n; k++) this.rowMax[k] = row[perm[k]];
-  }
-
-  /**
-   * L·D·Lᵀ pivot floors in the new numbering: pivotTolerance times the
-   * largest |a_ij| of each row of the symmetric matrix. Relative to its own
-   * row, a pivot is tiny only through cancellation; the largest entry of the
-   * whole matrix would instead flag rows that are merely in other units or
-   * on the small side of a coefficient jump.
-   */
-  private pivotFloors(): Float64Array {
-    const floor = (this.floors ??= new Float64Array(this.n));
-    for (let k = 0; k < this.n; k++) floor[k] = this.pivotTolerance * this.rowMax[k];
-    return floor;
+  private statistics(A: SparseMatrix): void {
+    this.normInf = rowStatistics(this.map as ScatterMap, A.values, this.scratchN, this.rowSums, this.diagIn);
+    this.maxA = largest(this.scratchN);
+    const perm = this.input.permutation, d = this.diagIn;
+    for (let k = 0; k < this.n; k++) this.diag[k] = d[perm[k]];
   }
 
   private pivotError(f: PivotFailure): NotPositiveDefiniteError {
@@ -216,7 +210,7 @@ export class Factorization {
     const column = this.input.permutation[st.superStart[f.supernode] + f.column];
     const what = this.method === "cholesky"
       ? `matrix is not positive definite: pivot ${f.pivot} <= 0`
-      : `L·D·Lᵀ met a zero or tiny pivot ${f.pivot} (|d| <= ${this.pivotTolerance} · the largest |a_ij| of its row)`;
+      : `L·D·Lᵀ met a zero or tiny pivot ${f.pivot} (|d_j| <= ${this.pivotTolerance} · max(|a_jj|, Σ_k l_jk²·|d_k|), the terms it was formed from)`;
     return new NotPositiveDefiniteError(column, f.pivot, `${what} at column ${column} (0-based, original numbering)`);
   }
 

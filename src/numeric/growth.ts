@@ -11,22 +11,16 @@
  */
 import type { SupernodalStructure } from "../symbolic/types.js";
 
-/** ρ for the L·D·Lᵀ factor in store S (unit L below each panel's diagonal, d_j on it); `w` is an n-long workspace. */
-export function ldltGrowth(st: SupernodalStructure, S: Float64Array, maxA: number, w: Float64Array): number {
-  w.fill(0);
-  for (let s = 0; s < st.supernodeCount; s++) {
-    const r0 = st.rowPtr[s], m = st.rowPtr[s + 1] - r0, f = st.superStart[s], c = st.superStart[s + 1] - f;
-    const panel = st.factorPtr[s];
-    for (let j = 0; j < c; j++) {
-      const col = panel + j * m, d = Math.abs(S[col + j]);
-      w[f + j] += d;
-      for (let i = j + 1; i < m; i++) {
-        const l = S[col + i];
-        w[st.rowIdx[r0 + i]] += l * l * d;
-      }
-    }
-  }
+/**
+ * ρ for the L·D·Lᵀ factor in store S (d_j on each panel's diagonal), given
+ * terms[j] = Σ_{k<j} l_jk²·|d_k| (new numbering, summed by the multifrontal
+ * pass): (|L|·|D|·|Lᵀ|)_jj = |d_j| + terms[j].
+ */
+export function ldltGrowth(st: SupernodalStructure, S: Float64Array, terms: Float64Array, maxA: number): number {
   let top = 0;
-  for (let j = 0; j < w.length; j++) if (w[j] > top) top = w[j];
+  for (let s = 0; s < st.supernodeCount; s++) {
+    const m = st.rowPtr[s + 1] - st.rowPtr[s], f = st.superStart[s], c = st.superStart[s + 1] - f;
+    for (let j = 0; j < c; j++) top = Math.max(top, Math.abs(S[st.factorPtr[s] + j * (m + 1)]) + terms[f + j]);
+  }
   return maxA > 0 ? top / maxA : 1;
 }

@@ -17,6 +17,22 @@
  * entries (scatter.ts) right before s is factored. Its contribution block (order m−c, lower triangle in column
  * panels, contribution.ts) is pushed on the stack above its children's,
  * receives their extend-add and its own update, then slides down over them.
+ *
+ * Pivot size: a pivot p_j (L_jj² or d_j) is judged against its own
+ * diagonal entry, r_j = |a_jj|, or, where a_jj = 0, against the terms it was
+ * formed from, r_j = Σ_k l_jk²·|d_k|. Under a change of units D·A·D both p_j
+ * and r_j scale by d_j², so p_j / r_j does not depend on the units (the
+ * diagonal-scaling invariance of Cholesky, van der Sluis 1969; Higham 2002,
+ * §10.1, from memory); the largest entry of row j does not scale so: in
+ * D·A·D it is d_j·a_jk·d_k, and a row in small units next to one in large
+ * units looked tiny. For Cholesky p_j / a_jj is the pivot of the matrix
+ * scaled to unit diagonal. For a quasi-definite [[H, Bᵀ], [B, −C]], Schur
+ * complements grow in the Loewner order when the other block is eliminated
+ * (H + Bᵀ·C⁻¹·B, C + B·H⁻¹·Bᵀ), so |d_j| / |a_jj| is no smaller than the
+ * pivot ratio of H or C alone (Schur-complement monotonicity, common
+ * practice): a lone −γ pivot is not tiny however small γ is, and a pivot
+ * that cancelled from O(1/γ) back to O(‖H‖) (growth, which refinement
+ * repairs) is not taken for a singular matrix.
  */
 import type { DenseKernels } from "../kernels/types.js";
 import type { SupernodalStructure } from "../symbolic/types.js";
@@ -40,17 +56,19 @@ export interface FrontalPass {
   /** Offset of the stack base (= factor doubles) and of the scratch block. */
   readonly stackBase: number;
   readonly scratch: number;
-  /** L·D·Lᵀ: per column (new numbering), a pivot with |d| ≤ tiny[j] stops the pass; unused by Cholesky. */
-  readonly tiny: Float64Array;
+  /** L·D·Lᵀ: a pivot with |d_j| ≤ pivotTolerance · r_j stops the pass (r_j above); unused by Cholesky. */
+  readonly pivotTolerance: number;
   /** Offset of each supernode's contribution block while it waits on the stack. */
   readonly cbOffset: Float64Array;
   /** Workspaces of length n. */
   readonly local: Int32Array;
   readonly rel: Int32Array;
   readonly runEnd: Int32Array;
-  /** Largest |a_jk| of each row j (new numbering), for the smallest relative pivot. */
-  readonly rowMax: Float64Array;
-  /** Out: smallest relative pivot min_j p_j / rowMax[j] and its column (see Factorization). */
+  /** |a_jj| of each column j (new numbering). */
+  readonly diag: Float64Array;
+  /** L·D·Lᵀ, in and out: Σ_k l_jk²·|d_k| over the pivots k eliminated so far (new numbering; zero before the pass); the growth too. */
+  readonly terms: Float64Array;
+  /** Out: smallest relative pivot min_j p_j / r_j and its column (see Factorization). */
   readonly smallest: { ratio: number; position: number };
   /** Called between supernodes with the supernode just done; may throw (abort). */
   readonly between: (s: number) => void;
@@ -88,16 +106,21 @@ export function multifrontal(p: FrontalPass): PivotFailure | null {
   return null;
 }
 
+/** r_j of column j (new numbering): |a_jj|, or for L·D·Lᵀ with a_jj = 0, Σ_k l_jk²·|d_k|. */
+function pivotScale(p: FrontalPass, j: number): number {
+  return p.diag[j] > 0 || p.method === "cholesky" ? p.diag[j] : p.terms[j];
+}
+
 /**
  * Fold s's pivots into p.smallest: p_j = L_jj² (Cholesky) or |d_j|, over
- * rowMax[j]; ties go to the lower column, as in a scan in column order.
+ * r_j; ties go to the lower column, as in a scan in column order.
  */
 function relativePivots(p: FrontalPass, S: Float64Array, s: number): void {
   const st = p.st, m = st.rowPtr[s + 1] - st.rowPtr[s], f = st.superStart[s], c = st.superStart[s + 1] - f;
   const panel = st.factorPtr[s], cholesky = p.method === "cholesky", low = p.smallest;
   for (let j = 0; j < c; j++) {
     const d = S[panel + j * (m + 1)], piv = cholesky ? d * d : Math.abs(d);
-    const ratio = piv / p.rowMax[f + j]; // rowMax > 0: a zero row gives a zero pivot, which stops the factorization
+    const ratio = piv / pivotScale(p, f + j); // r_j > 0: r_j = 0 gives a zero pivot, which stops the factorization
     if (ratio < low.ratio || (ratio === low.ratio && f + j < low.position)) { low.ratio = ratio; low.position = f + j; }
   }
 }
@@ -124,33 +147,40 @@ function factorFront(p: FrontalPass, S: Float64Array, s: number, cb: number): Pi
   if (bad) return bad;
   if (b === 0) return null;
   K.trsm(b, c, panel, m, panel + c, m, true);
-  // W = L21·D to scratch, then L21 = W·D⁻¹ in the panel, then CB −= W·L21ᵀ.
-  const w = p.scratch;
+  // W = L21·D to scratch, then L21 = W·D⁻¹ in the panel (adding l_ij²·|d_j| to the rows' terms), then CB −= W·L21ᵀ.
+  const w = p.scratch, below = st.rowPtr[s] + c, terms = p.terms;
   for (let j = 0; j < c; j++) {
-    const col = panel + j * m + c, inv = 1 / S[panel + j * (m + 1)];
+    const col = panel + j * m + c, dj = S[panel + j * (m + 1)], inv = 1 / dj, ad = Math.abs(dj);
     S.copyWithin(w + j * b, col, col + b);
-    for (let i = 0; i < b; i++) S[col + i] *= inv;
+    for (let i = 0; i < b; i++) {
+      const l = S[col + i] * inv;
+      S[col + i] = l;
+      terms[st.rowIdx[below + i]] += l * (l * ad); // l·(l·|d|): no overflow when l is large and |d| small
+    }
   }
   panelUpdate(K, b, c, w, b, panel + c, m, cb);
   return null;
 }
 
 /**
- * L·D·Lᵀ of s's diagonal block with the per-column pivot floors: the kernel
- * stops at the first pivot under the smallest floor of the block, then the
- * pivots it produced before that are checked against their own floors (a
- * pivot is computed the same whether or not a later check rejects it, so the
- * first failing column is the same as with a per-column test in the kernel).
+ * L·D·Lᵀ of s's diagonal block with per-column pivot floors tol·r_j: the
+ * kernel stops at the first pivot under tol·min_j r_j taken before the block
+ * (r_j can only grow within it), then the pivots it produced are checked in
+ * order, each after the block's earlier columns have added their l_jk²·|d_k|
+ * to its terms (a pivot is computed the same whether or not a later check
+ * rejects it, so the first failing column is the same as with a per-column
+ * test in the kernel).
  */
 function ldltPanel(p: FrontalPass, S: Float64Array, s: number, panel: number, m: number, c: number): PivotFailure | null {
-  const f0 = p.st.superStart[s];
+  const f0 = p.st.superStart[s], tol = p.pivotTolerance, terms = p.terms;
   let floor = Infinity;
-  for (let j = 0; j < c; j++) if (p.tiny[f0 + j] < floor) floor = p.tiny[f0 + j];
+  for (let j = 0; j < c; j++) floor = Math.min(floor, tol * pivotScale(p, f0 + j));
   const f = p.kernels.ldlt(c, panel, m, c > 0 ? floor : 0);
   const end = f >= 0 ? f : c;
   for (let j = 0; j < end; j++) {
-    const d = S[panel + j * (m + 1)];
-    if (Math.abs(d) <= p.tiny[f0 + j]) return { supernode: s, column: j, pivot: d };
+    const col = panel + j * m, d = S[col + j], ad = Math.abs(d);
+    if (ad <= tol * pivotScale(p, f0 + j)) return { supernode: s, column: j, pivot: d };
+    for (let i = j + 1; i < c; i++) { const l = S[col + i]; terms[f0 + i] += l * (l * ad); }
   }
   return f >= 0 ? { supernode: s, column: f, pivot: S[panel + f * (m + 1)] } : null;
 }

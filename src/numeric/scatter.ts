@@ -106,19 +106,24 @@ export function assemblePanel(map: ScatterMap, s: number, values: Float64Array, 
  * One pass over A's stored values (in the map's pattern): throws InputError
  * naming the first non-finite entry; fills rowMax[i] with the largest |a_ik|
  * of row i of the symmetric matrix (each stored entry counts for its row and
- * its column) and sums[i] with Σ_k |a_ik| (a mirrored entry of a triangular
- * form counts twice, as in symmetricNormInf); returns ‖A‖∞ = max_i sums[i].
- * Both arrays are in A's numbering and overwritten.
+ * its column), sums[i] with Σ_k |a_ik| (a mirrored entry of a triangular
+ * form counts twice, as in symmetricNormInf) and diag[i] with |a_ii|;
+ * returns ‖A‖∞ = max_i sums[i]. The arrays are in A's numbering and
+ * overwritten.
  */
-export function rowStatistics(map: ScatterMap, values: Float64Array, rowMax: Float64Array, sums: Float64Array): number {
+export function rowStatistics(
+  map: ScatterMap, values: Float64Array, rowMax: Float64Array, sums: Float64Array, diag: Float64Array,
+): number {
   const { colPtr, rowIdx } = map, n = colPtr.length - 1, mirrored = map.form !== "full";
   rowMax.fill(0);
   sums.fill(0);
+  diag.fill(0);
   for (let j = 0; j < n; j++) {
     for (let p = colPtr[j]; p < colPtr[j + 1]; p++) {
       const x = values[p];
       if (!Number.isFinite(x)) throw new InputError(`entry (${rowIdx[p]}, ${j}) (0-based) has non-finite value ${x}`);
       const i = rowIdx[p], a = Math.abs(x);
+      if (i === j) diag[j] = a;
       if (a > rowMax[i]) rowMax[i] = a;
       if (a > rowMax[j]) rowMax[j] = a;
       sums[i] += a;

@@ -33,9 +33,10 @@ export interface FactorOptions {
   /** Checked between supernodes; when aborted the factorization throws AbortedError and is left unusable. */
   signal?: AbortSignal;
   /**
-   * L·D·Lᵀ only: a pivot d_j with |d_j| ≤ pivotTolerance · max_i |a_ij| (the
-   * largest entry of its own row) stops the factorization with
-   * NotPositiveDefiniteError. Default 1e-12.
+   * L·D·Lᵀ only: a pivot d_j with |d_j| ≤ pivotTolerance · |a_jj| (its own
+   * diagonal entry; where a_jj = 0, Σ_k l_jk²·|d_k|, the terms it was formed
+   * from) stops the factorization with NotPositiveDefiniteError. Default
+   * 1e-12. Both sides scale alike under a change of units (multifrontal.ts).
    */
   pivotTolerance?: number;
 }
@@ -98,8 +99,9 @@ export interface FactorStats {
   readonly growth: number;
   /**
    * Smallest relative pivot min_j |p_j| / r_j, with p_j = L_jj² (Cholesky) or
-   * d_j (L·D·Lᵀ) and r_j the largest |a_jk| of row j of A (the row scale of
-   * the L·D·Lᵀ pivot tolerance); 1 for an empty matrix. Each pivot is the
+   * d_j (L·D·Lᵀ) and r_j = |a_jj| (for L·D·Lᵀ where a_jj = 0, Σ_k l_jk²·|d_k|;
+   * the scale of the L·D·Lᵀ pivot tolerance); it does not change with the
+   * units of the unknowns (D·A·D); 1 for an empty matrix. Each pivot is the
    * diagonal of a Schur complement, so a value near ε (2.2e-16) means a pivot
    * cancelled to rounding: A is singular or nearly so to working precision,
    * and solutions may be meaningless even when the backward error is small

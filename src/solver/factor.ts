@@ -22,7 +22,7 @@ export interface FactorizeOptions {
    * may be passed instead (it must not be shared by two live factorizations).
    */
   kernels?: "auto" | "wasm" | "js" | DenseKernels;
-  /** L·D·Lᵀ: a pivot d_j with |d_j| ≤ pivotTolerance · max_i |a_ij| (its own row's largest entry) is an error. Default 1e-12. */
+  /** L·D·Lᵀ: a pivot d_j with |d_j| ≤ pivotTolerance · |a_jj| (where a_jj = 0: Σ_k l_jk²·|d_k|) is an error. Default 1e-12. */
   pivotTolerance?: number;
   /** Called with `{ phase: "factor", fraction }`, the fraction of the factorization flops done. */
   onProgress?: (progress: Progress) => void;

@@ -32,10 +32,15 @@ function ldltUnblocked(S: Float64Array, n: number, a: number, lda: number, tiny:
 /** Reciprocals of the pivots of the current scaled update, grown on demand. */
 let reciprocals = new Float64Array(64);
 
-/** C[i, j] −= Σ_p W[i, p]·W[j, p] / d_p for one entry (edges of the scaled update). */
-function scaledEntry(S: Float64Array, k: number, w: number, ldw: number, dg: number, i: number, j: number): number {
+/**
+ * Σ_p (W[i, p]·r_p)·W[j, p], r_p = 1/d_p, for one entry (edges of the scaled
+ * update), in the tile's order: W[i, p]·r_p is l_ip, so in a matrix with
+ * unknowns in very different units (D·A·D) no product leaves the range of the
+ * result, where W[i, p]·W[j, p] / d_p underflowed (d_i·d_j·d_p² at 1e-100 each).
+ */
+function scaledEntry(S: Float64Array, k: number, w: number, ldw: number, R: Float64Array, i: number, j: number): number {
   let s = 0;
-  for (let p = 0, pw = w, pd = dg; p < k; p++, pw += ldw, pd += ldw + 1) s += (S[pw + i] * S[pw + j]) / S[pd];
+  for (let p = 0, pw = w; p < k; p++, pw += ldw) s += S[pw + i] * R[p] * S[pw + j];
   return s;
 }
 
@@ -73,7 +78,7 @@ function scaledUpdate(
     }
   }
   for (let j = 0; j < m; j++) {
-    for (let i = Math.max(j, m4); i < m; i++) S[c + i + j * ldc] -= scaledEntry(S, k, w, ldw, dg, i, j);
+    for (let i = Math.max(j, m4); i < m; i++) S[c + i + j * ldc] -= scaledEntry(S, k, w, ldw, R, i, j);
   }
 }
 
