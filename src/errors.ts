@@ -58,5 +58,5 @@ export class FormatError extends SeptumError {}
 /** Work stopped by an AbortSignal. Nothing half-built is left usable. */
 export class AbortedError extends SeptumError {}
 
-/** A request beyond what the platform can hold (for example WebAssembly memory limits). */
+/** A request beyond what the platform can hold (for example WebAssembly memory limits, or a solution entry beyond the range of doubles). */
 export class CapacityError extends SeptumError {}

@@ -7,13 +7,13 @@
 import { describe, expect, it } from "vitest";
 import { Matrix, solve } from "ml-matrix";
 import {
-  AbortedError, InputError, NotPositiveDefiniteError, NotSymmetricError, PatternMismatchError, SeptumError,
+  AbortedError, CapacityError, InputError, NotPositiveDefiniteError, NotSymmetricError, PatternMismatchError, SeptumError,
 } from "../src/errors.js";
 import { grid2d } from "../src/generate/grids.js";
 import { SparseMatrix } from "../src/matrix/sparse.js";
 import { factorize } from "../src/numeric/index.js";
 import { analyze } from "../src/solver/analyze.js";
-import { analyse, asFull, randomPermutation, randomSpd } from "./helpers/numeric.js";
+import { EPS, analyse, asFull, randomPermutation, randomSpd } from "./helpers/numeric.js";
 
 /** SPD matrix of order n with A(q,q) replaced by `d` and q decoupled from everything. */
 function withIsolated(n: number, q: number, d: number): SparseMatrix {
@@ -165,6 +165,24 @@ describe("bad input", () => {
     expect(() => F.solveWithInfo(ones, { refine: Number.NaN })).toThrow(InputError);
     expect(() => F.solve(ones, { refine: "yes" as never })).toThrow(/got "yes"/);
     expect(F.solveWithInfo(ones, { refine: 0 }).refinementSteps).toBe(0);
+  });
+
+  it("a solution beyond the double range is a CapacityError naming its entry, not Infinity returned as x", () => {
+    // diag(1, 1e-300, 2) with b = (1, 1e10, 1) in a random order: x₁ = 1e310 > 1.8e308 (closed form), so no
+    // double holds it; the other entries are fine. Every solve path must say so rather than return Infinity.
+    const A = SparseMatrix.fromTriplets(3, 3, [0, 1, 2], [0, 1, 2], [1, 1e-300, 2]);
+    const b = [1, 1e10, 1];
+    for (const method of ["cholesky", "ldlt"] as const) {
+      const F = factorize(analyse(A, Int32Array.from([2, 1, 0])), A, { method });
+      for (const attempt of [() => F.solve(b), () => F.solveWithInfo(b), () => F.solveInPlace(Float64Array.from(b)), () => F.solve([...b, ...b])]) {
+        const e = caught(attempt);
+        expect(e, method).toBeInstanceOf(CapacityError);
+        expect((e as Error).message, method).toMatch(/entry 1 of column 0/);
+      }
+      // Still usable: a right-hand side with a representable solution solves (x = (1, 1e10, 0.5)).
+      const x = F.solve([1, 1e-290, 1]);
+      [1, 1e10, 0.5].forEach((want, i) => expect(Math.abs(x[i] - want)).toBeLessThan(4 * EPS * want));
+    }
   });
 
   it("wrongly typed arguments: a matrix or right-hand side that is not one is an InputError, not a TypeError", () => {

@@ -5,7 +5,7 @@
  * the Rigal–Gaches normwise backward error), refactor, log-determinant and
  * inertia. Any failure leaves it refusing to solve until a refactor succeeds.
  */
-import { AbortedError, InputError, NotPositiveDefiniteError, PatternMismatchError, SeptumError } from "../errors.js";
+import { AbortedError, CapacityError, InputError, NotPositiveDefiniteError, PatternMismatchError, SeptumError } from "../errors.js";
 import { jsKernels } from "../kernels/js/index.js";
 import type { DenseKernels } from "../kernels/types.js";
 import { SparseMatrix } from "../matrix/sparse.js";
@@ -242,7 +242,10 @@ export class Factorization {
     throw new InputError(`refine must be true, false or a number of steps >= 0, got ${typeof r === "string" ? `"${r}"` : String(r)}`);
   }
 
-  /** Solve A·x = b overwriting b (length n or n×k column-major) with x; returns b. The plain sweeps: never refines. */
+  /**
+   * Solve A·x = b overwriting b (length n or n×k column-major) with x; returns b. The plain sweeps: never refines.
+   * An entry of x beyond the double range is a CapacityError (b then holds the overflowed x).
+   */
   solveInPlace(b: Float64Array): Float64Array {
     this.usable();
     const k = this.checkRhs(b), n = this.n, perm = this.input.permutation;
@@ -255,6 +258,7 @@ export class Factorization {
     if (unit) diagonalSweep(S, st, y, k);
     backwardSweep(S, st, y, k, unit, tmp);
     for (let r = 0; r < k; r++) for (let i = 0; i < n; i++) b[r * n + perm[i]] = y[i * k + r];
+    requireFinite(b, n);
     return b;
   }
 
@@ -310,6 +314,20 @@ export class Factorization {
     for (let s = 0; s < st.supernodeCount; s++) {
       const m = st.rowPtr[s + 1] - st.rowPtr[s], c = st.superStart[s + 1] - st.superStart[s];
       for (let j = 0; j < c; j++) f(S[st.factorPtr[s] + j * (m + 1)]);
+    }
+  }
+}
+
+/**
+ * CapacityError naming the first entry of a solution that is not finite: with
+ * finite A and b that is an entry beyond the double range (a pivot near the
+ * bottom of the range, e.g. diag(1e-300) with b = 1e10), which must not pass
+ * for a solution (its backward error would even read 0, as ‖x‖∞ = ∞).
+ */
+function requireFinite(x: Float64Array, n: number): void {
+  for (let i = 0; i < x.length; i++) {
+    if (!Number.isFinite(x[i])) {
+      throw new CapacityError(`solution entry ${i % n} of column ${Math.floor(i / n)} (0-based, original numbering) is ${x[i]}: beyond the range of doubles (about 1.8e308); rescale the system`);
     }
   }
 }
