@@ -79,7 +79,7 @@ describe("growth of L·D·Lᵀ without pivoting, and the refinement it calls for
     // lose about log10(growth) digits of backward error, refinement in working precision restores them.
     const A = quasiDefinite(40, 20, 5), n = A.ncols;
     const v = A.values.slice();
-    for (let j = 40; j < n; j++) for (let p = A.colPtr[j]; p < A.colPtr[j + 1]; p++) if (A.rowIdx[p] === j) v[p] *= 1e-8; // C → 1e-8·C
+    for (let j = 40; j < n; j++) for (let p = A.colPtr[j]; p < A.colPtr[j + 1]; p++) v[p] *= 1e-8; // C → 1e-8·C (the whole block: C stays positive definite)
     const Q = SparseMatrix.fromCSC(n, n, A.colPtr, A.rowIdx, v);
     const pressuresFirst = Int32Array.from({ length: n }, (_, k) => (k < 20 ? 40 + k : k - 20));
     const F = factorize(analyse(Q, pressuresFirst), Q, { method: "ldlt" });
