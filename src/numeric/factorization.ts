@@ -74,9 +74,9 @@ export class Factorization {
   private lastStats: FactorStats | null = null;
   /**
    * Smallest relative pivot min_j |p_j| / r_j over the diagonal of the
-   * factor, with p_j = L_jj² (Cholesky) or d_j (L·D·Lᵀ) and r_j the size of
-   * the terms p_j was formed from, |a_jj| (Cholesky) or max(|a_jj|,
-   * Σ_k l_jk²·|d_k|) (new numbering), folded in by the pass after each
+   * factor, with p_j = L_jj² (Cholesky) or d_j (L·D·Lᵀ) and r_j = |a_jj|, or
+   * for L·D·Lᵀ where a_jj = 0 the terms d_j was formed from, Σ_k l_jk²·|d_k|
+   * (new numbering; multifrontal.ts), folded in by the pass after each
    * supernode (multifrontal.ts). A pivot is the diagonal of a Schur
    * complement; a ratio near ε means it cancelled to rounding: A is singular
    * or nearly so to working precision. Ratio 1 for n = 0; position
@@ -210,7 +210,7 @@ export class Factorization {
     const column = this.input.permutation[st.superStart[f.supernode] + f.column];
     const what = this.method === "cholesky"
       ? `matrix is not positive definite: pivot ${f.pivot} <= 0`
-      : `L·D·Lᵀ met a zero or tiny pivot ${f.pivot} (|d_j| <= ${this.pivotTolerance} · max(|a_jj|, Σ_k l_jk²·|d_k|), the terms it was formed from)`;
+      : `L·D·Lᵀ met a zero or tiny pivot ${f.pivot} (|d_j| <= ${this.pivotTolerance} · |a_jj|, or where a_jj = 0 · Σ_k l_jk²·|d_k|, the terms d_j was formed from)`;
     return new NotPositiveDefiniteError(column, f.pivot, `${what} at column ${column} (0-based, original numbering)`);
   }
 
