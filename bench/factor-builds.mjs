@@ -9,7 +9,8 @@
 //   RUNS=5 KERNELS=js,auto node bench/factor-builds.mjs /tmp/before/index.js ../dist/index.js
 //
 // Without arguments it measures the current build alone. Problems: 3-D 7-point
-// 40³, elasticity 16³ bricks, 2-D 5-point 500² (nested dissection, Cholesky).
+// 40³, elasticity 16³ bricks, 2-D 5-point 500² (nested dissection; Cholesky, or
+// L·D·Lᵀ with METHOD=ldlt; add e.g. saddle2d:300 to PROBLEMS).
 import { pathToFileURL } from "node:url";
 import { resolve } from "node:path";
 import { median } from "./common.mjs";
@@ -18,6 +19,7 @@ const RUNS = Number(process.env.RUNS ?? 5);
 const WARMUPS = Number(process.env.WARMUPS ?? 1);
 const KERNELS = (process.env.KERNELS ?? "auto").split(",");
 const PROBLEMS = (process.env.PROBLEMS ?? "grid3d:40,elasticity3d:16,grid2d:500").split(",");
+const METHOD = process.env.METHOD ?? "cholesky"; // or "ldlt"
 const paths = process.argv.slice(2);
 const builds = paths.length ? await Promise.all(paths.map((p) => import(pathToFileURL(resolve(p)).href)))
   : [await import("../dist/index.js")];
@@ -31,7 +33,7 @@ for (const spec of PROBLEMS) {
     const runs = builds.map((lib) => {
       const A = lib[gen](Number(size)).matrix;
       const analysis = lib.analyze(A);
-      return { A, analysis, F: analysis.factor(A, { kernels }), seconds: [], cpu: [] };
+      return { A, analysis, F: analysis.factor(A, { kernels, method: METHOD }), seconds: [], cpu: [] };
     });
     const nnzL = runs.map((r) => r.analysis.stats.nnzL);
     if (new Set(nnzL).size !== 1) throw new Error(`${spec}: the builds analyse differently (nnz(L) ${nnzL.join(", ")})`);
@@ -46,7 +48,7 @@ for (const spec of PROBLEMS) {
       }
     }
     const base = median(runs[0].seconds), baseCpu = median(runs[0].cpu);
-    console.log(`${spec} ${kernels} (${runs[0].F.stats.kernels}) n=${runs[0].A.ncols} nnz(L)=${nnzL[0]}`);
+    console.log(`${spec} ${METHOD} ${kernels} (${runs[0].F.stats.kernels}) n=${runs[0].A.ncols} nnz(L)=${nnzL[0]}`);
     runs.forEach((x, i) => {
       const s = x.F.stats, med = median(x.seconds), cpu = median(x.cpu);
       console.log(`  ${names[i]}: factor ${med.toFixed(3)} s wall (runs ${x.seconds.map((t) => t.toFixed(2)).join(" ")})` +
