@@ -14,7 +14,7 @@ import { multifrontal, type PivotFailure } from "./multifrontal.js";
 import { buildScatterMap, rowStatistics, samePattern, type ScatterMap } from "./scatter.js";
 import { ldltGrowth } from "./growth.js";
 import { refineSolve } from "./refine.js";
-import { backwardSweep, diagonalSweep, forwardSweep, largestBelow } from "./triangular.js";
+import { backwardSweep, diagonalSweep, forwardSweep, largestBelow, reciprocalDiagonal } from "./triangular.js";
 import {
   DEFAULT_PIVOT_TOLERANCE, type FactorMethod, type FactorOptions, type FactorStats, type Inertia,
   type NumericInput, type SolveInfo, type SolveOptions,
@@ -71,6 +71,8 @@ export class Factorization {
   private readonly rowSums: Float64Array;
   /** n doubles: |a_ii| in the input numbering (rowStatistics). */
   private readonly diagIn: Float64Array;
+  /** n doubles: 1 / (diagonal j of the factor), L_jj or d_j (new numbering), for the solves. */
+  private readonly recip: Float64Array;
   private lastStats: FactorStats | null = null;
   /**
    * Smallest relative pivot min_j |p_j| / r_j over the diagonal of the
@@ -105,6 +107,7 @@ export class Factorization {
     this.scratchN = new Float64Array(st.n);
     this.rowSums = new Float64Array(st.n);
     this.diagIn = new Float64Array(st.n);
+    this.recip = new Float64Array(st.n);
     this.frontWork = {
       cbOffset: new Float64Array(st.supernodeCount), local: new Int32Array(st.n), rel: new Int32Array(st.n), runEnd: new Int32Array(st.n),
     };
@@ -128,6 +131,7 @@ export class Factorization {
       this.statistics(A);
       this.run(options, A.values);
       this.growth = this.method === "ldlt" ? ldltGrowth(this.input.structure, this.kernels.view(), this.terms, this.maxA) : 1;
+      reciprocalDiagonal(this.kernels.view(), this.input.structure, this.recip);
     } catch (e) {
       this.failure = e instanceof Error ? `the last factorization failed: ${e.message}` : "the last factorization failed";
       throw e;
@@ -254,9 +258,9 @@ export class Factorization {
     for (let r = 0; r < k; r++) for (let i = 0; i < n; i++) y[i * k + r] = b[r * n + perm[i]];
     const S = this.kernels.view(), st = this.input.structure, unit = this.method === "ldlt";
     const tmp = k === 1 ? this.solveTmp : new Float64Array(this.solveTmp.length * k);
-    forwardSweep(S, st, y, k, unit, tmp);
-    if (unit) diagonalSweep(S, st, y, k);
-    backwardSweep(S, st, y, k, unit, tmp);
+    forwardSweep(S, st, y, k, unit, tmp, this.recip);
+    if (unit) diagonalSweep(y, k, this.recip);
+    backwardSweep(S, st, y, k, unit, tmp, this.recip);
     for (let r = 0; r < k; r++) for (let i = 0; i < n; i++) b[r * n + perm[i]] = y[i * k + r];
     requireFinite(b, n);
     return b;
