@@ -14,7 +14,7 @@ import { multifrontal, type PivotFailure } from "./multifrontal.js";
 import { buildScatterMap, rowStatistics, samePattern, type ScatterMap } from "./scatter.js";
 import { ldltGrowth } from "./growth.js";
 import { refineSolve } from "./refine.js";
-import { backwardSweep, diagonalSweep, forwardSweep, largestBelow, reciprocalDiagonal } from "./triangular.js";
+import { backwardSweep, diagonalSweep, forwardSweep, largestBelow } from "./triangular.js";
 import {
   DEFAULT_PIVOT_TOLERANCE, type FactorMethod, type FactorOptions, type FactorStats, type Inertia,
   type NumericInput, type SolveInfo, type SolveOptions,
@@ -131,7 +131,6 @@ export class Factorization {
       this.statistics(A);
       this.run(options, A.values);
       this.growth = this.method === "ldlt" ? ldltGrowth(this.input.structure, this.kernels.view(), this.terms, this.maxA) : 1;
-      reciprocalDiagonal(this.kernels.view(), this.input.structure, this.recip);
     } catch (e) {
       this.failure = e instanceof Error ? `the last factorization failed: ${e.message}` : "the last factorization failed";
       throw e;
@@ -191,7 +190,7 @@ export class Factorization {
       stackBase: w.factorDoubles, scratch: w.factorDoubles + w.stackDoubles,
       pivotTolerance: this.pivotTolerance, // L·D·Lᵀ only: Cholesky stops on pivots <= 0
       ...this.frontWork,
-      diag: this.diag, terms: this.terms, smallest,
+      diag: this.diag, terms: this.terms, smallest, recip: this.recip,
       between,
     });
     if (fail) throw this.pivotError(fail);

@@ -70,6 +70,8 @@ export interface FrontalPass {
   readonly terms: Float64Array;
   /** Out: smallest relative pivot min_j p_j / r_j and its column (see Factorization). */
   readonly smallest: { ratio: number; position: number };
+  /** Out: 1 / (diagonal j of the factor), L_jj or d_j (new numbering), for the solves; written while the supernode is in cache. */
+  readonly recip: Float64Array;
   /** Called between supernodes with the supernode just done; may throw (abort). */
   readonly between: (s: number) => void;
 }
@@ -113,13 +115,15 @@ function pivotScale(p: FrontalPass, j: number): number {
 
 /**
  * Fold s's pivots into p.smallest: p_j = L_jj² (Cholesky) or |d_j|, over
- * r_j; ties go to the lower column, as in a scan in column order.
+ * r_j; ties go to the lower column, as in a scan in column order. Also
+ * writes their reciprocals to p.recip.
  */
 function relativePivots(p: FrontalPass, S: Float64Array, s: number): void {
   const st = p.st, m = st.rowPtr[s + 1] - st.rowPtr[s], f = st.superStart[s], c = st.superStart[s + 1] - f;
   const panel = st.factorPtr[s], cholesky = p.method === "cholesky", low = p.smallest;
   for (let j = 0; j < c; j++) {
     const d = S[panel + j * (m + 1)], piv = cholesky ? d * d : Math.abs(d);
+    p.recip[f + j] = 1 / d;
     const ratio = piv / pivotScale(p, f + j); // r_j > 0: r_j = 0 gives a zero pivot, which stops the factorization
     if (ratio < low.ratio || (ratio === low.ratio && f + j < low.position)) { low.ratio = ratio; low.position = f + j; }
   }

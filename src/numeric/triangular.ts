@@ -17,7 +17,11 @@
  */
 import type { SupernodalStructure } from "../symbolic/types.js";
 
-/** Forward solve L·Y = Y in place (Y n×k row-major); `unit` for L·D·Lᵀ. `tmp` holds max(m − c)·k doubles. */
+/**
+ * Forward solve L·Y = Y in place (Y n×k row-major); `unit` for L·D·Lᵀ. `tmp`
+ * holds max(m − c)·k doubles; recip[j] = 1 / L_jj (kept by the factorization:
+ * the sweeps multiply instead of dividing, a division per column having shown in profiles).
+ */
 export function forwardSweep(
   S: Float64Array, st: SupernodalStructure, y: Float64Array, k: number, unit: boolean, tmp: Float64Array, recip: Float64Array,
 ): void {
@@ -55,7 +59,7 @@ export function forwardSweep(
   }
 }
 
-/** Backward solve Lᵀ·X = Y in place (row-major n×k). */
+/** Backward solve Lᵀ·X = Y in place (row-major n×k); `tmp` and `recip` as in {@link forwardSweep}. */
 export function backwardSweep(
   S: Float64Array, st: SupernodalStructure, y: Float64Array, k: number, unit: boolean, tmp: Float64Array, recip: Float64Array,
 ): void {
@@ -153,19 +157,6 @@ export function diagonalSweep(y: Float64Array, k: number, recip: Float64Array): 
   for (let j = 0; j < recip.length; j++) {
     const inv = recip[j], yj = j * k;
     for (let r = 0; r < k; r++) y[yj + r] *= inv;
-  }
-}
-
-/**
- * recip[j] := 1 / (diagonal j of the factor), L_jj or d_j, once per
- * factorization: the sweeps multiply instead of dividing (a division costs
- * several multiplications' time, and one per column per sweep showed in profiles).
- */
-export function reciprocalDiagonal(S: Float64Array, st: SupernodalStructure, recip: Float64Array): void {
-  const { rowPtr, superStart, factorPtr } = st;
-  for (let s = 0; s < st.supernodeCount; s++) {
-    const m = rowPtr[s + 1] - rowPtr[s], f = superStart[s], c = superStart[s + 1] - f;
-    for (let jj = 0; jj < c; jj++) recip[f + jj] = 1 / S[factorPtr[s] + jj * (m + 1)];
   }
 }
 
