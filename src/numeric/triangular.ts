@@ -86,7 +86,7 @@ function diagonalBackwardK(S: Float64Array, panel: number, m: number, c: number,
   }
 }
 
-/** k right-hand sides: tmp (b×k) += L21·Y[f..f+c), two columns of L21 per pass over tmp. */
+/** k right-hand sides: tmp (b×k) += L21·Y[f..f+c), four columns of L21 per pass over tmp. */
 function belowForwardK(S: Float64Array, at: number, m: number, c: number, b: number, y: Float64Array, f: number, k: number, tmp: Float64Array): void {
   let jj = 0;
   for (; jj + 4 <= c; jj += 4) {
@@ -105,7 +105,7 @@ function belowForwardK(S: Float64Array, at: number, m: number, c: number, b: num
   }
 }
 
-/** k right-hand sides: Y[f..f+c) −= L21ᵀ·tmp (b×k), two columns of L21 per pass over tmp. */
+/** k right-hand sides: Y[f..f+c) −= L21ᵀ·tmp (b×k), four columns of L21 per pass over tmp. */
 function belowBackwardK(S: Float64Array, at: number, m: number, c: number, b: number, y: Float64Array, f: number, k: number, tmp: Float64Array): void {
   let jj = 0;
   for (; jj + 4 <= c; jj += 4) {
