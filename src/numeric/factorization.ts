@@ -78,8 +78,8 @@ export class Factorization {
    * Smallest relative pivot min_j |p_j| / r_j over the diagonal of the
    * factor, with p_j = L_jj² (Cholesky) or d_j (L·D·Lᵀ) and r_j = |a_jj|, or
    * for L·D·Lᵀ where a_jj = 0 the terms d_j was formed from, Σ_k l_jk²·|d_k|
-   * (new numbering; multifrontal.ts), folded in by the pass after each
-   * supernode (multifrontal.ts). A pivot is the diagonal of a Schur
+   * (new numbering), folded in by the pass after each supernode
+   * (multifrontal.ts, where the rule is argued). A pivot is the diagonal of a Schur
    * complement; a ratio near ε means it cancelled to rounding: A is singular
    * or nearly so to working precision. Ratio 1 for n = 0; position
    * is the new-numbering column of the first pivot reaching it (-1 for n = 0).
