@@ -106,6 +106,13 @@ describe("septum: errors a person can act on", () => {
     expectOneLineError(run(["analyze", a, "--threads", "0"]), 2, "--threads: expected an integer in 1..256, got '0'");
     expectOneLineError(run(["solve", a, "--threads", "two"]), 2, "--threads: expected an integer in 1..256, got 'two'");
     expect(run(["solve", a, "--frobnicate"]).err).toContain("Try 'septum --help'");
+    // a negative value reaches the option's own check (parseArgs alone calls it "ambiguous", naming no value)
+    expectOneLineError(run(["analyze", a, "--threads", "-1"]), 2, "--threads: expected an integer in 1..256, got '-1'");
+    expectOneLineError(run(["analyze", a, "--seed", "-3"]), 2, "--seed: expected an integer in 0..2147483647, got '-3'");
+    expectOneLineError(run(["demo", "--size", "-.5", "-o", "d"]), 2, "--size: expected a number in 0.3..6, got '-.5'");
+    // an option the kind does not read is refused, not ignored
+    expectOneLineError(run(["generate", "grid2d", "5", "--contrast", "10", "-o", "g.mtx"]), 2, "generate grid2d: --contrast applies to mesh2d only");
+    expectOneLineError(run(["generate", "grid3d", "5", "--seed", "2", "-o", "g.mtx"]), 2, "generate grid3d: --seed applies to laplacian only");
   });
 
   it("--debug shows the stack", () => {

@@ -36,12 +36,34 @@ export type Parsed = { values: Record<string, string | boolean | undefined>; pos
 /** Parse the arguments after the sub-command name. */
 export function parseCommand(command: string, args: string[]): Parsed {
   try {
-    const r = parseArgs({ args, options: SPECS[command], allowPositionals: true, strict: true });
+    const r = parseArgs({ args: negativeValuesJoined(args, SPECS[command]), options: SPECS[command], allowPositionals: true, strict: true });
     return { values: r.values as Parsed["values"], positionals: r.positionals };
   } catch (e) {
     const msg = e instanceof Error ? e.message.replace(/\. To specify a positional argument.*$/s, "") : String(e);
     throw new UsageError(`${command}: ${msg.replace(/^Unknown option/, "unknown option")}`);
   }
+}
+
+/**
+ * `--seed -1` as `--seed=-1`: parseArgs takes a value that starts with a dash
+ * for another option ("argument is ambiguous"), so a negative number after an
+ * option that takes a value is joined to it, and the option's own check then
+ * accepts it or names it.
+ */
+function negativeValuesJoined(args: string[], spec: Spec): string[] {
+  const takes = new Map<string, string>();
+  for (const [name, o] of Object.entries(spec)) {
+    if (o.type !== "string") continue;
+    takes.set(`--${name}`, name);
+    if (o.short) takes.set(`-${o.short}`, name);
+  }
+  const out: string[] = [];
+  for (let i = 0; i < args.length; i++) {
+    const name = takes.get(args[i]);
+    if (name !== undefined && i + 1 < args.length && /^-(\d|\.\d|Infinity)/.test(args[i + 1])) out.push(`--${name}=${args[++i]}`);
+    else out.push(args[i]);
+  }
+  return out;
 }
 
 /** The ordering named by --ordering (full names or nd, md, rcm). */
