@@ -60,3 +60,17 @@ export class AbortedError extends SeptumError {}
 
 /** A request beyond what the platform can hold (for example WebAssembly memory limits, or a solution entry beyond the range of doubles). */
 export class CapacityError extends SeptumError {}
+
+/**
+ * The options argument of a public call: undefined and null mean none; a
+ * string, number or array (say an ordering name where `{ ordering }` was
+ * meant) is an InputError naming the call.
+ */
+export function optionsObject<T extends object>(options: T | null | undefined, who: string): T {
+  if (options === undefined || options === null) return {} as T;
+  if (typeof options !== "object" || Array.isArray(options) || ArrayBuffer.isView(options)) {
+    const got = typeof options === "string" ? `"${options}"` : Array.isArray(options) || ArrayBuffer.isView(options) ? "an array" : String(options);
+    throw new InputError(`${who}: options must be an object, got ${got}`);
+  }
+  return options;
+}

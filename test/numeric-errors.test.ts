@@ -195,4 +195,19 @@ describe("bad input", () => {
     expect(() => F.refactor(undefined as never)).toThrow(/got undefined/);
     expect(() => analyze({ nrows: 2, ncols: 2 } as never)).toThrow(/must be a SparseMatrix.*got another object/);
   });
+
+  it("options: null means none; an ordering name or a number where an options object belongs is an InputError naming the call", () => {
+    const A = grid2d(6).matrix, b = new Float64Array(A.ncols).fill(1);
+    const an = analyze(A, null as never);
+    expect(Array.from(an.permutation)).toEqual(Array.from(analyze(A).permutation));
+    const F = an.factor(A, null as never);
+    const x = F.solve(b, null as never);
+    expect(Array.from(F.solveWithInfo(b, null as never).x)).toEqual(Array.from(x));
+    expect(F.refactor(A, null as never)).toBe(F);
+    expect(() => analyze(A, "minimum-degree" as never)).toThrow(/analyze: options must be an object, got "minimum-degree"/);
+    expect(() => an.factor(A, "ldlt" as never)).toThrow(/factor: options must be an object, got "ldlt"/);
+    expect(() => F.solve(b, 3 as never)).toThrow(/solve: options must be an object, got 3/);
+    expect(() => F.solveWithInfo(b, [true] as never)).toThrow(/solveWithInfo: options must be an object, got an array/);
+    expect(() => F.refactor(A, "again" as never)).toThrow(InputError);
+  });
 });

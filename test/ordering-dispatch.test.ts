@@ -97,6 +97,10 @@ describe("computeOrdering", () => {
     expect(() => computeOrdering(plain)).toThrow(/must be Int32Arrays/);
     expect(() => computeOrdering(null as unknown as Graph)).toThrow(/expected a Graph, got null/);
     expect(() => computeOrdering({ n: 1.5 } as unknown as Graph)).toThrow(/graph.n must be a non-negative integer, got 1.5/);
+    // options: null means none; an ordering name where { ordering } was meant is named
+    const g = grid2(5);
+    expect(Array.from(computeOrdering(g, null as never).permutation)).toEqual(Array.from(computeOrdering(g).permutation));
+    expect(() => computeOrdering(g, "minimum-degree" as never)).toThrow(/computeOrdering: options must be an object, got "minimum-degree"/);
   });
 
   it("stops with AbortedError when the signal is aborted, before or during the dissection", () => {

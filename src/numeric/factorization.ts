@@ -5,7 +5,9 @@
  * the Rigal–Gaches normwise backward error), refactor, log-determinant and
  * inertia. Any failure leaves it refusing to solve until a refactor succeeds.
  */
-import { AbortedError, CapacityError, InputError, NotPositiveDefiniteError, PatternMismatchError, SeptumError } from "../errors.js";
+import {
+  AbortedError, CapacityError, InputError, NotPositiveDefiniteError, optionsObject, PatternMismatchError, SeptumError,
+} from "../errors.js";
 import { jsKernels } from "../kernels/js/index.js";
 import type { DenseKernels } from "../kernels/types.js";
 import { SparseMatrix } from "../matrix/sparse.js";
@@ -123,7 +125,8 @@ export class Factorization {
    * pattern throws PatternMismatchError. On any error the factorization is
    * left unusable until a later refactor succeeds.
    */
-  refactor(A: SparseMatrix, options: RefactorOptions = {}): this {
+  refactor(A: SparseMatrix, given: RefactorOptions = {}): this {
+    const options = optionsObject(given, "refactor");
     this.failure = "the last factorization did not complete";
     const t0 = performance.now();
     try {
@@ -228,7 +231,8 @@ export class Factorization {
    * Without `refine`, an L·D·Lᵀ factorization whose growth exceeds
    * AUTO_REFINE_GROWTH refines (as `refine: true`); Cholesky never needs to.
    */
-  solve(b: Float64Array | number[], options: SolveOptions = {}): Float64Array {
+  solve(b: Float64Array | number[], given: SolveOptions = {}): Float64Array {
+    const options = optionsObject(given, "solve");
     this.usable();
     if (this.refineSteps(options)) return this.solveWithInfo(b, options).x;
     return this.solveInPlace(rhsCopy(b)); // solveInPlace checks the right-hand side
@@ -266,7 +270,8 @@ export class Factorization {
   }
 
   /** Solve with the normwise backward error reported and iterative refinement (default as in {@link solve}). */
-  solveWithInfo(b: Float64Array | number[], options: SolveOptions = {}): SolveInfo {
+  solveWithInfo(b: Float64Array | number[], given: SolveOptions = {}): SolveInfo {
+    const options = optionsObject(given, "solveWithInfo");
     this.usable();
     const rhs = rhsCopy(b);
     this.checkRhs(rhs);

@@ -5,7 +5,7 @@
  * Comput. 16(6)), and returns the permutation (new → original) with the
  * separator tree when nested dissection built one.
  */
-import { AbortedError, InputError } from "../errors.js";
+import { AbortedError, InputError, optionsObject } from "../errors.js";
 import { compressIfSmaller, expandPermutation, type CompressedGraph } from "../graph/compress.js";
 import { checkGraph, checkGraphShape } from "../graph/check.js";
 import { checkPermutation } from "../matrix/permutation.js";
@@ -69,7 +69,8 @@ const COMPRESSION_RATIO = 0.75;
  * @throws InputError for an unknown ordering, a bad seed, bad coordinates or an
  * invalid user permutation (naming the first bad entry); AbortedError when the signal fires.
  */
-export function computeOrdering(g: Graph, options: OrderingOptions = {}): OrderingResult {
+export function computeOrdering(g: Graph, given: OrderingOptions = {}): OrderingResult {
+  const options = optionsObject(given, "computeOrdering");
   checkGraphShape(g, "computeOrdering");
   const n = g.n;
   if (options.signal?.aborted) throw new AbortedError("ordering aborted before it started");

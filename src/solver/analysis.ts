@@ -4,6 +4,7 @@
  * matrix with that pattern, and it serializes to bytes so another run can
  * skip the analysis entirely.
  */
+import { optionsObject } from "../errors.js";
 import type { SparseMatrix } from "../matrix/sparse.js";
 import type { SeparatorTree } from "../ordering/types.js";
 import type { SupernodalStructure } from "../symbolic/types.js";
@@ -56,7 +57,7 @@ export class Analysis {
    * `{ method: "ldlt" }` for L·D·Lᵀ.
    */
   factor(A: SparseMatrix, options: FactorizeOptions = {}): Factorization {
-    return factorWithAnalysis(this, A, options);
+    return factorWithAnalysis(this, A, optionsObject(options, "factor"));
   }
 
   /** Serialize to bytes (versioned, checksummed). */

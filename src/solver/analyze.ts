@@ -3,7 +3,7 @@
  * matrix (any storage form), orders it, runs the symbolic phase and predicts
  * the numeric phase's memory, all before any numeric storage exists.
  */
-import { AbortedError, InputError, SeptumError } from "../errors.js";
+import { AbortedError, InputError, optionsObject, SeptumError } from "../errors.js";
 import { adjacencyGraph } from "../graph/adjacency.js";
 import type { SparseMatrix } from "../matrix/sparse.js";
 import { requireSquare, storageForm } from "../matrix/symmetric.js";
@@ -62,7 +62,8 @@ export interface AnalyzeOptions {
 const NAMES: readonly string[] = ORDERING_NAMES;
 
 /** Order and analyse the pattern of the symmetric matrix A. */
-export function analyze(A: SparseMatrix, options: AnalyzeOptions = {}): Analysis {
+export function analyze(A: SparseMatrix, given: AnalyzeOptions = {}): Analysis {
+  const options = optionsObject(given, "analyze");
   requireSquare(A);
   const { signal, onProgress } = options;
   const choice = orderingChoice(options.ordering, A.ncols);
