@@ -67,12 +67,8 @@ export class Factorization {
   private readonly terms: Float64Array;
   /** Largest |a_ij| of A (statistics), the denominator of the growth. */
   private maxA = 0;
-  /** n doubles reused by every factorization: row maxima in the input numbering (for maxA). */
-  private readonly scratchN: Float64Array;
   /** n doubles: row sums of |A| (rowStatistics). */
   private readonly rowSums: Float64Array;
-  /** n doubles: |a_ii| in the input numbering (rowStatistics). */
-  private readonly diagIn: Float64Array;
   /** n doubles: 1 / (diagonal j of the factor), L_jj or d_j (new numbering), for the solves. */
   private readonly recip: Float64Array;
   private lastStats: FactorStats | null = null;
@@ -106,9 +102,7 @@ export class Factorization {
     const st = input.structure;
     this.diag = new Float64Array(st.n);
     this.terms = new Float64Array(method === "ldlt" ? st.n : 0);
-    this.scratchN = new Float64Array(st.n);
     this.rowSums = new Float64Array(st.n);
-    this.diagIn = new Float64Array(st.n);
     this.recip = new Float64Array(st.n);
     this.frontWork = {
       cbOffset: new Float64Array(st.supernodeCount), local: new Int32Array(st.n), rel: new Int32Array(st.n), runEnd: new Int32Array(st.n),
@@ -205,10 +199,9 @@ export class Factorization {
    * numbering.
    */
   private statistics(A: SparseMatrix): void {
-    this.normInf = rowStatistics(this.map as ScatterMap, A.values, this.scratchN, this.rowSums, this.diagIn);
-    this.maxA = largest(this.scratchN);
-    const perm = this.input.permutation, d = this.diagIn;
-    for (let k = 0; k < this.n; k++) this.diag[k] = d[perm[k]];
+    const r = rowStatistics(this.map as ScatterMap, A.values, this.input.inversePermutation, this.rowSums, this.diag);
+    this.normInf = r.normInf;
+    this.maxA = r.largest;
   }
 
   private pivotError(f: PivotFailure): NotPositiveDefiniteError {
@@ -351,13 +344,6 @@ function requireArray(b: unknown): void {
 function rhsCopy(b: ArrayLike<number>): Float64Array {
   requireArray(b);
   return Float64Array.from(b);
-}
-
-/** Largest entry of a nonnegative array (0 if empty). */
-function largest(v: Float64Array): number {
-  let m = 0;
-  for (let i = 0; i < v.length; i++) if (v[i] > m) m = v[i];
-  return m;
 }
 
 /** Running sum of Σ c_j² along the processing order (structure counts). */

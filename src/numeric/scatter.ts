@@ -104,33 +104,31 @@ export function assemblePanel(map: ScatterMap, s: number, values: Float64Array, 
 
 /**
  * One pass over A's stored values (in the map's pattern): throws InputError
- * naming the first non-finite entry; fills rowMax[i] with the largest |a_ik|
- * of row i of the symmetric matrix (each stored entry counts for its row and
- * its column), sums[i] with Σ_k |a_ik| (a mirrored entry of a triangular
- * form counts twice, as in symmetricNormInf) and diag[i] with |a_ii|;
- * returns ‖A‖∞ = max_i sums[i]. The arrays are in A's numbering and
- * overwritten.
+ * naming the first non-finite entry; fills sums[i] with Σ_k |a_ik| of row i
+ * of the symmetric matrix (a mirrored entry of a triangular form counts
+ * twice, as in symmetricNormInf; A's numbering) and diag[inverse[i]] with
+ * |a_ii| (the new numbering); returns ‖A‖∞ = max_i sums[i] and the largest
+ * |a_ij|. Both arrays are overwritten.
  */
 export function rowStatistics(
-  map: ScatterMap, values: Float64Array, rowMax: Float64Array, sums: Float64Array, diag: Float64Array,
-): number {
+  map: ScatterMap, values: Float64Array, inverse: Int32Array, sums: Float64Array, diag: Float64Array,
+): { normInf: number; largest: number } {
   const { colPtr, rowIdx } = map, n = colPtr.length - 1, mirrored = map.form !== "full";
-  rowMax.fill(0);
   sums.fill(0);
   diag.fill(0);
+  let largest = 0;
   for (let j = 0; j < n; j++) {
     for (let p = colPtr[j]; p < colPtr[j + 1]; p++) {
       const x = values[p];
       if (!Number.isFinite(x)) throw new InputError(`entry (${rowIdx[p]}, ${j}) (0-based) has non-finite value ${x}`);
       const i = rowIdx[p], a = Math.abs(x);
-      if (i === j) diag[j] = a;
-      if (a > rowMax[i]) rowMax[i] = a;
-      if (a > rowMax[j]) rowMax[j] = a;
+      if (i === j) diag[inverse[j]] = a;
+      if (a > largest) largest = a;
       sums[i] += a;
       if (mirrored && i !== j) sums[j] += a;
     }
   }
-  let norm = 0;
-  for (let i = 0; i < n; i++) if (sums[i] > norm) norm = sums[i];
-  return norm;
+  let normInf = 0;
+  for (let i = 0; i < n; i++) if (sums[i] > normInf) normInf = sums[i];
+  return { normInf, largest };
 }
