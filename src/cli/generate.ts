@@ -19,7 +19,7 @@ const KIND_OPTIONS: Record<string, readonly string[]> = {
 
 /** UsageError naming an option given that `kind` does not read. */
 function checkKindOptions(kind: string, p: Parsed): void {
-  for (const name of ["stencil", "contrast", "degree", "seed"]) {
+  for (const name of new Set(Object.values(KIND_OPTIONS).flat())) {
     if (p.values[name] !== undefined && !KIND_OPTIONS[kind].includes(name)) {
       const users = KINDS.filter((k) => KIND_OPTIONS[k].includes(name));
       throw new UsageError(`generate ${kind}: --${name} applies to ${users.join(", ")} only`);
